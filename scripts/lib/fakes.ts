@@ -1,0 +1,87 @@
+// Local stand-ins for the hosted services: an S3-compatible store and an SMTP server with an inbox.
+import { spawn, type ChildProcess } from "node:child_process";
+import { mkdirSync } from "node:fs";
+import net from "node:net";
+import path from "node:path";
+// s3rver ships no types.
+// @ts-expect-error untyped package
+import S3rver from "s3rver";
+
+export async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.unref();
+    server.on("error", reject);
+    server.listen(0, "127.0.0.1", () => {
+      const { port } = server.address() as net.AddressInfo;
+      server.close(() => resolve(port));
+    });
+  });
+}
+
+async function waitForPort(port: number, timeoutMs = 20_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const open = await new Promise<boolean>((resolve) => {
+      const socket = net.connect(port, "127.0.0.1");
+      socket.once("connect", () => (socket.destroy(), resolve(true)));
+      socket.once("error", () => resolve(false));
+    });
+    if (open) return;
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+  throw new Error(`nothing listened on 127.0.0.1:${port} within ${timeoutMs} ms`);
+}
+
+export interface RunningService {
+  stop(): Promise<void>;
+}
+
+export async function startS3Fake(options: { dir: string; port: number; bucket: string }): Promise<RunningService> {
+  mkdirSync(options.dir, { recursive: true });
+  const server = new S3rver({
+    port: options.port,
+    address: "127.0.0.1",
+    silent: true,
+    directory: options.dir,
+    configureBuckets: [{ name: options.bucket }],
+  });
+  await server.run();
+  return { stop: () => server.close() };
+}
+
+function stopChild(child: ChildProcess): Promise<void> {
+  return new Promise((resolve) => {
+    if (child.exitCode !== null || child.signalCode !== null) return resolve();
+    child.once("exit", () => resolve());
+    child.kill("SIGTERM");
+    setTimeout(() => child.kill("SIGKILL"), 5_000).unref();
+  });
+}
+
+/** maildev: SMTP on one port, and a web inbox (with a REST API at /email) on another. */
+export async function startMailFake(options: {
+  dir: string;
+  smtpPort: number;
+  webPort: number;
+  root: string;
+}): Promise<RunningService> {
+  mkdirSync(options.dir, { recursive: true });
+  const child = spawn(
+    path.join(options.root, "node_modules", ".bin", "maildev"),
+    [
+      "--smtp", String(options.smtpPort),
+      "--ip", "127.0.0.1",
+      "--web", String(options.webPort),
+      "--web-ip", "127.0.0.1",
+      "--mail-directory", options.dir,
+      "--silent",
+    ],
+    { detached: true, stdio: "ignore" },
+  );
+  await waitForPort(options.smtpPort);
+  await waitForPort(options.webPort);
+  return { stop: () => stopChild(child) };
+}
+
+export { stopChild, waitForPort };

@@ -1,0 +1,30 @@
+import "server-only";
+import { z } from "zod";
+
+// Every variable the server reads, validated once. `npm start` and the test setup provide them.
+const EnvSchema = z.object({
+  DB_HOST: z.string().default("127.0.0.1"),
+  DB_PORT: z.coerce.number().int().positive().default(3307),
+  DB_NAME: z.string().default("threadline"),
+  DB_USER: z.string().default("threadline"),
+  DB_PASSWORD: z.string().default("threadline-local"),
+  S3_ENDPOINT: z.string().url().default("http://127.0.0.1:4569"),
+  S3_BUCKET: z.string().default("threadline-documents"),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
+  S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
+  SMTP_HOST: z.string().default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().positive().default(1025),
+  MAIL_FROM: z.string().default("Threadline <no-reply@threadline.test>"),
+  APP_URL: z.string().url().default("http://localhost:3000"),
+  NODE_ENV: z.string().default("production"),
+});
+
+export type ServerEnv = z.infer<typeof EnvSchema>;
+
+let cached: ServerEnv | null = null;
+
+export function serverEnv(): ServerEnv {
+  cached ??= EnvSchema.parse(process.env);
+  return cached;
+}
