@@ -9,9 +9,10 @@ import { projectRoot } from "./lib/services";
 const log = (message: string) => process.stdout.write(`[threadline] ${message}\n`);
 
 ensureBuild(projectRoot, log);
+// Under tsx, so the global setup (in vitest's own process) can load the TypeScript migrations and seeds.
 const result = spawnSync(
-  path.join(projectRoot, "node_modules", ".bin", "vitest"),
-  ["run", ...process.argv.slice(3)],
+  process.execPath,
+  ["--import", "tsx", path.join(projectRoot, "node_modules", "vitest", "vitest.mjs"), "run", ...process.argv.slice(3)],
   { cwd: projectRoot, stdio: "inherit", env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1" } },
 );
 process.exit(result.status ?? 1);
