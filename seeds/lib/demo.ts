@@ -22,3 +22,18 @@ export const DEMO_USERS = [
 ] as const;
 
 export const demoEmail = (role: string) => `${role}@demo.threadline.test`;
+
+/** The invented fleet: registrations use the prefix Q-, which no state uses. */
+export const DEMO_AIRCRAFT = [
+  { id: 1, registration: "Q-FRAA", msn: "72-0104", typeId: 1, stationId: 1, startHours: 18_240, startCycles: 11_905 },
+  { id: 2, registration: "Q-FRAB", msn: "72-0117", typeId: 1, stationId: 1, startHours: 16_012, startCycles: 10_448 },
+  { id: 3, registration: "Q-FRAC", msn: "72-0131", typeId: 1, stationId: 2, startHours: 12_377, startCycles: 8_020 },
+  { id: 4, registration: "Q-FRAD", msn: "72-0142", typeId: 1, stationId: 2, startHours: 9_605, startCycles: 6_210 },
+  { id: 5, registration: "Q-FRBA", msn: "40-0211", typeId: 2, stationId: 1, startHours: 21_480, startCycles: 24_950 },
+  { id: 6, registration: "Q-FRBB", msn: "40-0226", typeId: 2, stationId: 1, startHours: 19_733, startCycles: 23_102 },
+  { id: 7, registration: "Q-FRBC", msn: "40-0238", typeId: 2, stationId: 2, startHours: 14_120, startCycles: 16_874 },
+  { id: 8, registration: "Q-FRBD", msn: "40-0249", typeId: 2, stationId: 2, startHours: 8_806, startCycles: 10_391 },
+] as const;
+
+/** The demo history runs from the operator's first records to DEMO_NOW. */
+export const HISTORY_START = new Date("2024-12-01T00:00:00.000Z");
