@@ -134,7 +134,7 @@ export function simulateHistory(userIds: { technician: string; inspector: string
     positionIdBase += layouts.get(type.id)!.length;
   }
 
-  const host = new Map(DEMO_AIRCRAFT.map((a) => [a.id, { minutes: a.startHours * 60, cycles: a.startCycles }]));
+  const host = new Map<number, { minutes: number; cycles: number }>(DEMO_AIRCRAFT.map((a) => [a.id, { minutes: a.startHours * 60, cycles: a.startCycles }]));
   const fittedAt = new Map<string, Unit>(); // `${aircraftId}:${positionId}` -> unit
   const start = HISTORY_START.getTime();
 

@@ -1,6 +1,7 @@
 // Flight time as integer minutes. Both "H:MM" and decimal hours are in everyday use
 // (practice, not regulation), so we accept both on input and store only whole minutes:
 // integers add up exactly, where repeated decimal-hour sums drift.
+// The strict ISO 8601 instant parsing the ledger and the life calculations share is at the end.
 
 import { DomainInputError } from "./errors";
 
@@ -117,4 +118,80 @@ export function minutesToDecimalHours(minutes: number, places = 1): number {
   const scale = 10n ** BigInt(places);
   const scaled = (BigInt(minutes) * scale * 2n + 60n) / 120n;
   return Number(scaled) / Number(scale);
+}
+
+// ---------------------------------------------------------------------------------------
+// Instants
+//
+// Kept here, beside the durations, rather than in ledger-hash.ts: life.ts and continuity.ts
+// need them too, and may end up in client bundles, where ledger-hash's node:crypto cannot go.
+
+// YYYY-MM-DDTHH:MM[:SS[.fff]] followed by Z or +HH:MM / -HH:MM. A zone is required: a bare
+// local time would hash differently on machines in different time zones.
+const INSTANT = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2})(?:\.(\d{1,3}))?)?(Z|([+-])(\d{2}):(\d{2}))$/;
+const CANONICAL_INSTANT = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/;
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+function isLeapYear(year: number): boolean {
+  return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+}
+
+/**
+ * Parses an ISO 8601 instant with an explicit zone into epoch milliseconds, checking every
+ * field's range (Date.parse quietly rolls 30 February over into March). More precision than
+ * milliseconds is refused, since the database stores DATETIME(3).
+ */
+export function instantToEpochMs(value: string, field = "instant"): number {
+  const m = typeof value === "string" ? INSTANT.exec(value) : null;
+  if (!m) {
+    throw new DomainInputError(
+      `${field} must be an ISO 8601 instant with a zone, like 2026-03-01T10:15:00.000Z; got ${JSON.stringify(value)}.`,
+      field,
+    );
+  }
+  const year = Number(m[1]);
+  const month = Number(m[2]);
+  const day = Number(m[3]);
+  const hour = Number(m[4]);
+  const minute = Number(m[5]);
+  const second = m[6] === undefined ? 0 : Number(m[6]);
+  const millis = m[7] === undefined ? 0 : Number(m[7].padEnd(3, "0"));
+  const monthDays = month === 2 && isLeapYear(year) ? 29 : DAYS_IN_MONTH[month - 1];
+  const offsetHours = m[10] === undefined ? 0 : Number(m[10]);
+  const offsetMinutes = m[11] === undefined ? 0 : Number(m[11]);
+  if (
+    month < 1 || month > 12 || day < 1 || day > monthDays ||
+    hour > 23 || minute > 59 || second > 59 || offsetHours > 23 || offsetMinutes > 59
+  ) {
+    throw new DomainInputError(`${field} is not a real instant: ${JSON.stringify(value)}.`, field);
+  }
+  const offset = (m[9] === "-" ? -1 : 1) * (offsetHours * 60 + offsetMinutes) * 60_000;
+  // Date.UTC maps years 0-99 to 1900-1999; setting the full year avoids that.
+  const date = new Date(Date.UTC(2000, month - 1, day, hour, minute, second, millis));
+  date.setUTCFullYear(year);
+  return date.getTime() - offset;
+}
+
+/** Any accepted instant -> "2026-03-01T10:15:00.000Z" (UTC, milliseconds). */
+export function normaliseInstant(value: string, field = "instant"): string {
+  // Fast path for the common case, straight from the database: already canonical and a real
+  // date. It reads digits in place, because verifying a million rows makes allocation count.
+  if (typeof value === "string" && CANONICAL_INSTANT.test(value) && canonicalFieldsInRange(value)) return value;
+  const text = new Date(instantToEpochMs(value, field)).toISOString();
+  if (text.length !== 24) throw new DomainInputError(`${field} is outside years 0000-9999: ${value}.`, field);
+  return text;
+}
+
+function digits2(text: string, at: number): number {
+  return (text.charCodeAt(at) - 48) * 10 + (text.charCodeAt(at + 1) - 48);
+}
+
+/** Range check of a string already shaped like YYYY-MM-DDTHH:MM:SS.fffZ. */
+function canonicalFieldsInRange(text: string): boolean {
+  const year = digits2(text, 0) * 100 + digits2(text, 2);
+  const month = digits2(text, 5);
+  const day = digits2(text, 8);
+  if (month < 1 || month > 12 || day < 1) return false;
+  const monthDays = month === 2 && isLeapYear(year) ? 29 : DAYS_IN_MONTH[month - 1];
+  return day <= monthDays && digits2(text, 11) <= 23 && digits2(text, 14) <= 59 && digits2(text, 17) <= 59;
 }

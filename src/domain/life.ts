@@ -6,8 +6,7 @@
 // any later snapshot follow from its times at installation plus the host's delta.
 
 import { DomainInputError } from "./errors";
-import { formatFlightTime } from "./flight-time";
-import { instantToEpochMs } from "./ledger-hash";
+import { formatFlightTime, instantToEpochMs } from "./flight-time";
 
 export interface LifeLimits {
   /** Flight-time limit in minutes, or null when the part number has none. */

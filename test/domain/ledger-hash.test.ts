@@ -7,10 +7,9 @@ import {
   canonicalEncodeEntry,
   chainEntry,
   computeEntryHash,
-  instantToEpochMs,
-  normaliseInstant,
   verifyChain,
 } from "@/domain/ledger-hash";
+import { instantToEpochMs, normaliseInstant } from "@/domain/flight-time";
 import type { ChainedLedgerEntry, LedgerEntryFields } from "@/domain/ledger-types";
 
 // Invented data throughout: part numbers, serials, users and work orders are made up.
