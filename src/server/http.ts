@@ -4,6 +4,7 @@ import { ZodError, type ZodType } from "zod";
 import type { User } from "lucia";
 import type { Role } from "@/lib/roles";
 import { validateRequest } from "./auth";
+import { DomainInputError } from "@/domain/errors";
 import { AppError } from "./errors";
 
 type ErrorBody = { error: { code: string; message: string; fields?: Record<string, string> } };
@@ -14,6 +15,10 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
       { error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } },
       { status: error.status, headers: error.headers },
     );
+  }
+  if (error instanceof DomainInputError) {
+    const field = error.field ?? "body";
+    return NextResponse.json({ error: { code: "invalid", message: error.message, fields: { [field]: error.message } } }, { status: 422 });
   }
   if (error instanceof ZodError) {
     const fields = zodFields(error);
