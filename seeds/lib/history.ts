@@ -97,7 +97,10 @@ export function simulateHistory(userIds: { technician: string; inspector: string
   };
 
   const newUnit = (pnKey: string, receivedMs: number, ageYears: number): Unit => {
+    ageYears = Math.max(0, ageYears);
     const pn = DEMO_PART_NUMBERS.find((p) => p.key === pnKey)!;
+    // Units arrive with most of any calendar life left, as a stores clerk would accept them.
+    if (pn.lifeDays) ageYears = Math.min(ageYears, (pn.lifeDays / 365) * 0.6 * random());
     const n = (serialCounters.get(pn.serialPrefix) ?? 1000) + 1 + Math.floor(random() * 3);
     serialCounters.set(pn.serialPrefix, n);
     const hoursSoFar = Math.floor(ageYears * 2_600 * (0.6 + random() * 0.5));
@@ -203,6 +206,9 @@ export function simulateHistory(userIds: { technician: string; inspector: string
     return seq;
   }
 
+  const lifeHoursLeft = (unit: Unit) => (unit.pn.lifeHours ? unit.pn.lifeHours * 60 - unit.tsn : Infinity);
+  const lifeDaysLeft = (unit: Unit, atMs: number) => (unit.pn.lifeDays ? unit.pn.lifeDays - (atMs - Date.parse(unit.manufacturedOn)) / DAY_MS : Infinity);
+
   const days = Math.round((DEMO_NOW.getTime() - start) / DAY_MS);
   const pending: Array<{ day: number; run: () => void }> = [];
   for (let day = 0; day < days; day++) {
@@ -233,7 +239,7 @@ export function simulateHistory(userIds: { technician: string; inspector: string
         } else if (overhaulDue) {
           removalType = "scheduled";
           reason = "Overhaul interval reached";
-        } else if (lifeCyclesLeft < 40) {
+        } else if (lifeCyclesLeft < 40 || lifeHoursLeft(unit) < 50 * 60 || lifeDaysLeft(unit, dayStart) < 21) {
           removalType = "scheduled";
           reason = "Life limit approaching";
         } else {

@@ -58,22 +58,26 @@ export function buildLayout(type: DemoType): DemoPosition[] {
   const add = (p: Omit<DemoPosition, "cautions" | "independentInspection" | "parentCode"> & Partial<DemoPosition>) =>
     positions.push({ parentCode: null, cautions: [], independentInspection: false, ...p });
 
-  // Main landing gear: two sides, two wheels each, an electric brake per wheel with several actuators.
+  // Main landing gear: two sides, two wheels each, an electric brake per wheel with several actuators
+  // spaced round it. Each wheel is a row: speed transducer, wheel, temperature sensor, brake, actuators.
   const sides = [
-    { side: "L", y: 190, zone: "MLG-L", wheels: [1, 2] },
-    { side: "R", y: 410, zone: "MLG-R", wheels: [3, 4] },
+    { side: "L", rows: [150, 230], zone: "MLG-L", wheels: [1, 2], strutY: 190 },
+    { side: "R", rows: [370, 450], zone: "MLG-R", wheels: [3, 4], strutY: 410 },
   ];
-  for (const { side, y, zone, wheels } of sides) {
+  for (const { side, rows, zone, wheels, strutY } of sides) {
     const gear = `MLG-${side}`;
-    add({ code: `${gear}-STRUT`, label: `Main gear shock strut, ${side === "L" ? "left" : "right"}`, ata: "32-11", x: 560, y, zone, cautions: GEAR_CAUTIONS, eligible: ["mlgStrut"] });
-    add({ code: `${gear}-RA`, label: `Main gear retraction actuator, ${side === "L" ? "left" : "right"}`, ata: "32-31", x: 600, y: y + (side === "L" ? -40 : 40), zone, cautions: GEAR_CAUTIONS, independentInspection: true, eligible: ["mlgRetract"], parentCode: `${gear}-STRUT` });
-    add({ code: `${gear}-UL`, label: `Main gear uplock actuator, ${side === "L" ? "left" : "right"}`, ata: "32-32", x: 640, y: y + (side === "L" ? -40 : 40), zone, cautions: GEAR_CAUTIONS, eligible: ["uplock"], parentCode: `${gear}-STRUT` });
+    const sideWord = side === "L" ? "left" : "right";
+    add({ code: `${gear}-STRUT`, label: `Main gear shock strut, ${sideWord}`, ata: "32-11", x: 700, y: strutY, zone, cautions: GEAR_CAUTIONS, eligible: ["mlgStrut"] });
+    add({ code: `${gear}-RA`, label: `Main gear retraction actuator, ${sideWord}`, ata: "32-31", x: 740, y: strutY - 24, zone, cautions: GEAR_CAUTIONS, independentInspection: true, eligible: ["mlgRetract"], parentCode: `${gear}-STRUT` });
+    add({ code: `${gear}-UL`, label: `Main gear uplock actuator, ${sideWord}`, ata: "32-32", x: 740, y: strutY + 24, zone, cautions: GEAR_CAUTIONS, eligible: ["uplock"], parentCode: `${gear}-STRUT` });
     wheels.forEach((n, i) => {
-      const wy = y + (i === 0 ? -22 : 22) * (side === "L" ? 1 : -1);
+      const wy = rows[i];
       const wheel = `W${n}`;
       const brake = `B${n}`;
-      add({ code: wheel, label: `Main wheel ${n}`, ata: "32-41", x: 500, y: wy, zone, cautions: WHEEL_CAUTIONS, eligible: ["mainWheel", "mainWheelB"], parentCode: `${gear}-STRUT` });
-      add({ code: brake, label: `Brake ${n}`, ata: "32-42", x: 540, y: wy, zone, cautions: WHEEL_CAUTIONS, eligible: ["brake", "brakeB"], parentCode: wheel });
+      add({ code: `${brake}-WST`, label: `Wheel speed transducer, wheel ${n}`, ata: "32-42", x: 470, y: wy, zone, cautions: WHEEL_CAUTIONS, eligible: ["wheelSpeed"], parentCode: wheel });
+      add({ code: wheel, label: `Main wheel ${n}`, ata: "32-41", x: 505, y: wy, zone, cautions: WHEEL_CAUTIONS, eligible: ["mainWheel", "mainWheelB"], parentCode: `${gear}-STRUT` });
+      add({ code: `${brake}-BTS`, label: `Brake temperature sensor, brake ${n}`, ata: "32-42", x: 540, y: wy, zone, cautions: WHEEL_CAUTIONS, eligible: ["brakeTemp"], parentCode: brake });
+      add({ code: brake, label: `Brake ${n}`, ata: "32-42", x: 575, y: wy, zone, cautions: WHEEL_CAUTIONS, eligible: ["brake", "brakeB"], parentCode: wheel });
       const count = type.brakeActuatorsPerBrake;
       for (let a = 1; a <= count; a++) {
         const angle = (2 * Math.PI * (a - 1)) / count - Math.PI / 2;
@@ -81,25 +85,23 @@ export function buildLayout(type: DemoType): DemoPosition[] {
           code: `${brake}-EBA${a}`,
           label: `Brake ${n} electric actuator ${a}`,
           ata: "32-42",
-          x: round(540 + 16 * Math.cos(angle) + 48),
-          y: round(wy + 16 * Math.sin(angle)),
+          x: round(636 + 26 * Math.cos(angle)),
+          y: round(wy + 26 * Math.sin(angle)),
           zone,
           cautions: BRAKE_ACTUATOR_CAUTIONS,
           eligible: ["brakeActuator", "brakeActuatorB"],
           parentCode: brake,
         });
       }
-      add({ code: `${brake}-WST`, label: `Wheel speed transducer, wheel ${n}`, ata: "32-42", x: 500, y: wy + 14, zone, cautions: WHEEL_CAUTIONS, eligible: ["wheelSpeed"], parentCode: wheel });
-      add({ code: `${brake}-BTS`, label: `Brake temperature sensor, brake ${n}`, ata: "32-42", x: 540, y: wy - 14, zone, cautions: WHEEL_CAUTIONS, eligible: ["brakeTemp"], parentCode: brake });
     });
   }
 
   // Nose landing gear.
-  add({ code: "NLG-STRUT", label: "Nose gear shock strut", ata: "32-21", x: 170, y: 300, zone: "NLG", cautions: GEAR_CAUTIONS, eligible: ["nlgStrut"] });
-  add({ code: "NLG-RA", label: "Nose gear retraction actuator", ata: "32-31", x: 200, y: 300, zone: "NLG", cautions: GEAR_CAUTIONS, independentInspection: true, eligible: ["nlgRetract"], parentCode: "NLG-STRUT" });
-  add({ code: "NLG-STEER", label: "Nose wheel steering actuator", ata: "32-51", x: 170, y: 330, zone: "NLG", cautions: GEAR_CAUTIONS, independentInspection: true, eligible: ["steering"], parentCode: "NLG-STRUT" });
-  add({ code: "NW1", label: "Nose wheel 1 (left)", ata: "32-41", x: 140, y: 285, zone: "NLG", cautions: WHEEL_CAUTIONS, eligible: ["noseWheel"], parentCode: "NLG-STRUT" });
-  add({ code: "NW2", label: "Nose wheel 2 (right)", ata: "32-41", x: 140, y: 315, zone: "NLG", cautions: WHEEL_CAUTIONS, eligible: ["noseWheel"], parentCode: "NLG-STRUT" });
+  add({ code: "NLG-STRUT", label: "Nose gear shock strut", ata: "32-21", x: 230, y: 300, zone: "NLG", cautions: GEAR_CAUTIONS, eligible: ["nlgStrut"] });
+  add({ code: "NLG-RA", label: "Nose gear retraction actuator", ata: "32-31", x: 262, y: 300, zone: "NLG", cautions: GEAR_CAUTIONS, independentInspection: true, eligible: ["nlgRetract"], parentCode: "NLG-STRUT" });
+  add({ code: "NLG-STEER", label: "Nose wheel steering actuator", ata: "32-51", x: 230, y: 332, zone: "NLG", cautions: GEAR_CAUTIONS, independentInspection: true, eligible: ["steering"], parentCode: "NLG-STRUT" });
+  add({ code: "NW1", label: "Nose wheel 1 (left)", ata: "32-41", x: 198, y: 284, zone: "NLG", cautions: WHEEL_CAUTIONS, eligible: ["noseWheel"], parentCode: "NLG-STRUT" });
+  add({ code: "NW2", label: "Nose wheel 2 (right)", ata: "32-41", x: 198, y: 316, zone: "NLG", cautions: WHEEL_CAUTIONS, eligible: ["noseWheel"], parentCode: "NLG-STRUT" });
 
   // Avionics bay, laid out as racks.
   const avionics: Array<[string, string, string, number]> = [
@@ -118,12 +120,12 @@ export function buildLayout(type: DemoType): DemoPosition[] {
   let rack = 0;
   for (const [code, label, key, count] of avionics) {
     for (let n = 1; n <= count; n++) {
-      add({ code: count > 1 ? `${code}-${n}` : code, label: count > 1 ? `${label} ${n}` : label, ata: ataOf(key), x: 60 + (rack % 4) * 24, y: 240 + Math.floor(rack / 4) * 24, zone: "AVIONICS", cautions: ELECTRICAL_CAUTIONS, eligible: [key] });
+      add({ code: count > 1 ? `${code}-${n}` : code, label: count > 1 ? `${label} ${n}` : label, ata: ataOf(key), x: 60 + (rack % 4) * 32, y: 400 + Math.floor(rack / 4) * 32, zone: "AVIONICS", cautions: ELECTRICAL_CAUTIONS, eligible: [key] });
       rack++;
     }
   }
   for (let n = 1; n <= 6; n++) {
-    add({ code: `DU-${n}`, label: `Flight deck display unit ${n}`, ata: "31-61", x: 40 + ((n - 1) % 3) * 14, y: 270 + Math.floor((n - 1) / 3) * 60, zone: "FLIGHT DECK", cautions: ELECTRICAL_CAUTIONS, eligible: ["display", "displayB"] });
+    add({ code: `DU-${n}`, label: `Flight deck display unit ${n}`, ata: "31-61", x: 60 + ((n - 1) % 3) * 32, y: 80 + Math.floor((n - 1) / 3) * 32, zone: "FLIGHT DECK", cautions: ELECTRICAL_CAUTIONS, eligible: ["display", "displayB"] });
   }
 
   // Engine accessories, one set per engine on the wings.
@@ -142,10 +144,9 @@ export function buildLayout(type: DemoType): DemoPosition[] {
     engineParts.push(["PCU", "Propeller control unit", "propControl"], ["OSG", "Propeller overspeed governor", "overspeedGov"], ["DEICE-T", "Propeller de-ice timer", "deiceTimer"]);
   }
   for (const engine of [1, 2]) {
-    const baseY = engine === 1 ? 100 : 500;
     engineParts.forEach(([code, label, key], i) => {
       const starterEligible = key === "starter" ? ["starter", "starterB"] : [key];
-      add({ code: `E${engine}-${code}`, label: `${label}, engine ${engine}`, ata: ataOf(key), x: 420 + (i % 4) * 22, y: baseY - 22 + Math.floor(i / 4) * 22, zone: `ENGINE ${engine}`, cautions: ENGINE_CAUTIONS, eligible: starterEligible });
+      add({ code: `E${engine}-${code}`, label: `${label}, engine ${engine}`, ata: ataOf(key), x: 415 + (i % 4) * 30, y: engine === 1 ? 50 + Math.floor(i / 4) * 30 : 550 - Math.floor(i / 4) * 30, zone: `ENGINE ${engine}`, cautions: ENGINE_CAUTIONS, eligible: starterEligible });
     });
   }
 
@@ -154,25 +155,25 @@ export function buildLayout(type: DemoType): DemoPosition[] {
     add({ code, label, ata: ataOf(key), x, y, zone, cautions: FLIGHT_CONTROL_CAUTIONS, independentInspection: true, eligible: [key] });
   const aileronsPerSide = type.engines === "turbofan" ? 2 : 1;
   for (let n = 1; n <= aileronsPerSide; n++) {
-    fc(`AIL-L-${n}`, `Aileron actuator, left ${n}`, "aileronActuator", 640 + n * 20, 30, "LEFT WING");
-    fc(`AIL-R-${n}`, `Aileron actuator, right ${n}`, "aileronActuator", 640 + n * 20, 570, "RIGHT WING");
+    fc(`AIL-L-${n}`, `Aileron actuator, left ${n}`, "aileronActuator", 664 + n * 26, 22, "LEFT WING");
+    fc(`AIL-R-${n}`, `Aileron actuator, right ${n}`, "aileronActuator", 664 + n * 26, 578, "RIGHT WING");
   }
   const spoilersPerSide = type.engines === "turbofan" ? 5 : 4;
   for (let n = 1; n <= spoilersPerSide; n++) {
-    fc(`SPL-L-${n}`, `Spoiler actuator, left ${n}`, "spoilerActuator", 560 + n * 16, 150 - n * 18, "LEFT WING");
-    fc(`SPL-R-${n}`, `Spoiler actuator, right ${n}`, "spoilerActuator", 560 + n * 16, 450 + n * 18, "RIGHT WING");
+    fc(`SPL-L-${n}`, `Spoiler actuator, left ${n}`, "spoilerActuator", 560 + n * 24, 110 - n * 14, "LEFT WING");
+    fc(`SPL-R-${n}`, `Spoiler actuator, right ${n}`, "spoilerActuator", 560 + n * 24, 490 + n * 14, "RIGHT WING");
   }
   for (let n = 1; n <= 2; n++) {
-    fc(`FLAP-L-${n}`, `Flap actuator, left ${n}`, "flapActuator", 620, 170 - n * 50, "LEFT WING");
-    fc(`FLAP-R-${n}`, `Flap actuator, right ${n}`, "flapActuator", 620, 430 + n * 50, "RIGHT WING");
+    fc(`FLAP-L-${n}`, `Flap actuator, left ${n}`, "flapActuator", 556, 118 - (n - 1) * 46, "LEFT WING");
+    fc(`FLAP-R-${n}`, `Flap actuator, right ${n}`, "flapActuator", 556, 482 + (n - 1) * 46, "RIGHT WING");
   }
   const elevatorsPerSide = type.engines === "turbofan" ? 2 : 1;
   for (let n = 1; n <= elevatorsPerSide; n++) {
-    fc(`ELEV-L-${n}`, `Elevator actuator, left ${n}`, "elevatorActuator", 930, 230 - n * 20, "TAIL");
-    fc(`ELEV-R-${n}`, `Elevator actuator, right ${n}`, "elevatorActuator", 930, 370 + n * 20, "TAIL");
+    fc(`ELEV-L-${n}`, `Elevator actuator, left ${n}`, "elevatorActuator", 930, 240 - n * 30, "TAIL");
+    fc(`ELEV-R-${n}`, `Elevator actuator, right ${n}`, "elevatorActuator", 930, 360 + n * 30, "TAIL");
   }
   const rudders = type.engines === "turbofan" ? 3 : 2;
-  for (let n = 1; n <= rudders; n++) fc(`RUD-${n}`, `Rudder actuator ${n}`, "rudderActuator", 920 + n * 18, 300, "TAIL");
+  for (let n = 1; n <= rudders; n++) fc(`RUD-${n}`, `Rudder actuator ${n}`, "rudderActuator", 905 + n * 28, 300, "TAIL");
 
   // Electrical, air and ice protection in the centre fuselage.
   const centre: Array<[string, string, string, number]> = [
@@ -187,12 +188,12 @@ export function buildLayout(type: DemoType): DemoPosition[] {
   let slot = 0;
   for (const [code, label, key, count] of centre) {
     for (let n = 1; n <= count; n++) {
-      add({ code: `${code}-${n}`, label: `${label} ${n}`, ata: ataOf(key), x: 300 + (slot % 6) * 24, y: 260 + Math.floor(slot / 6) * 24, zone: "CENTRE", cautions: key === "battery" || key === "tru" || key === "gcu" ? ELECTRICAL_CAUTIONS : [], eligible: [key] });
+      add({ code: `${code}-${n}`, label: `${label} ${n}`, ata: ataOf(key), x: 300 + (slot % 6) * 30, y: 270 + Math.floor(slot / 6) * 30, zone: "CENTRE", cautions: key === "battery" || key === "tru" || key === "gcu" ? ELECTRICAL_CAUTIONS : [], eligible: [key] });
       slot++;
     }
   }
   if (type.engines === "turbofan") {
-    add({ code: "APU-SG", label: "APU starter-generator", ata: "49-42", x: 970, y: 330, zone: "TAIL", cautions: ELECTRICAL_CAUTIONS, eligible: ["apuStarterGen"] });
+    add({ code: "APU-SG", label: "APU starter-generator", ata: "49-42", x: 960, y: 340, zone: "TAIL", cautions: ELECTRICAL_CAUTIONS, eligible: ["apuStarterGen"] });
   }
   return positions;
 }

@@ -58,6 +58,7 @@ export interface NavItem {
 /** The main navigation, in the order a user meets the work. */
 export const NAV_ITEMS: NavItem[] = [
   { area: "fleet", href: "/fleet", label: "Fleet" },
+  { area: "parts", href: "/parts", label: "Parts" },
   { area: "receiving", href: "/receiving", label: "Receiving" },
   { area: "stock", href: "/stock", label: "Stock" },
   { area: "removals", href: "/removals", label: "Removals" },

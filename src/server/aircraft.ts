@@ -1,7 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
-import { currentTotals, onWingTime, remainingLife, ageInDays, type LifeStatus } from "@/domain/life";
+import { currentTotals, onWingTime, remainingLife, ageInDays } from "@/domain/life";
 import { formatFlightTime } from "@/domain/flight-time";
+import type { FittedUnit, MapPosition, PositionState } from "@/lib/position-types";
 import { db, type Trx } from "./db";
 import { AppError, notFound } from "./errors";
 
@@ -19,41 +20,6 @@ export interface AircraftSummary {
   totalMinutes: number;
   cycles: number;
   asOf: string | null;
-}
-
-export type PositionState = "fitted" | "empty" | "near_limit" | "past_limit" | "finding";
-
-export interface FittedUnit {
-  partId: number;
-  partNumber: string;
-  serialNumber: string;
-  cage: string;
-  description: string;
-  installedAt: string;
-  hoursOnWing: string;
-  cyclesOnWing: number;
-  tsn: string;
-  csn: number;
-  tso: string | null;
-  cso: number | null;
-  life: { status: LifeStatus; hoursRemaining: string | null; cyclesRemaining: number | null; daysRemaining: number | null };
-}
-
-export interface MapPosition {
-  id: number;
-  code: string;
-  label: string;
-  parentCode: string | null;
-  ataChapter: string;
-  zone: string | null;
-  x: number;
-  y: number;
-  cautions: string[];
-  independentInspection: boolean;
-  eligible: string[];
-  fitted: FittedUnit | null;
-  state: PositionState;
-  findings: number;
 }
 
 function latestUtilizationQuery(knex: Knex) {
@@ -316,3 +282,5 @@ export async function listUtilization(registration: string, limit = 30, trx: Trx
     cycles: Number(row.total_cycles),
   }));
 }
+
+export type { FittedUnit, MapPosition, PositionState };

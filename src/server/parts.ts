@@ -189,7 +189,8 @@ export async function getPartDetail(partId: number, options: { now?: Date; trx?:
       .where("e.part_id", partId)
       .orderBy("e.seq", "desc")
       .select("e.*", "a.registration", "p.code as position_code", "us.name as recorded_by_name", "us.licence_number"),
-    trx("documents").where({ part_id: partId }).orderBy("uploaded_at", "desc"),
+    // A unit's documents are those its ledger entries cite (certificates, tags, shop reports).
+    trx("documents").whereIn("id", trx("ledger_entries").where("part_id", partId).whereNotNull("document_id").select("document_id")).orderBy("uploaded_at", "desc"),
   ]);
   return {
     ...summary,
