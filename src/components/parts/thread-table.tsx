@@ -34,7 +34,37 @@ function detailText(line: ThreadLine): string {
 /** A unit's ledger entries, newest first. */
 export function ThreadTable({ lines, timeZone = "UTC" }: { lines: ThreadLine[]; timeZone?: string }) {
   return (
-    <div className="panel overflow-x-auto">
+    <>
+      {/* On a phone each entry is a card; the full table needs a wider screen. */}
+      <ol className="space-y-2 md:hidden">
+        {lines.map((line) => (
+          <li key={line.seq} className="panel p-3 text-sm">
+            <p className="flex justify-between gap-2 font-semibold">
+              <span>{KIND_WORDS[line.kind] ?? line.kind}</span>
+              <span className="num">seq {line.seq}</span>
+            </p>
+            <p>{formatInstant(line.occurredAt, timeZone)}</p>
+            {line.registration ? (
+              <p className="num">
+                {line.registration} · {line.positionCode} · A/C {line.aircraftHours} h / {formatCycles(line.aircraftCycles)} cyc
+              </p>
+            ) : null}
+            {line.tsn ? (
+              <p className="num">
+                TSN {line.tsn} · CSN {formatCycles(line.csn)}
+                {line.tso ? ` · TSO ${line.tso} · CSO ${formatCycles(line.cso)}` : ""}
+              </p>
+            ) : null}
+            {line.workOrder ? <p className="num">{line.workOrder}</p> : null}
+            {detailText(line) ? <p>{detailText(line)}</p> : null}
+            <p>
+              Signed {line.recordedBy}
+              {line.recordedByLicence ? <span className="num"> ({line.recordedByLicence})</span> : null}
+            </p>
+          </li>
+        ))}
+      </ol>
+    <div className="panel hidden overflow-x-auto md:block">
       <table className="w-full border-collapse text-sm">
         <thead className="text-left">
           <tr>
@@ -74,5 +104,6 @@ export function ThreadTable({ lines, timeZone = "UTC" }: { lines: ThreadLine[]; 
         </tbody>
       </table>
     </div>
+    </>
   );
 }
