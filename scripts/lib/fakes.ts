@@ -3,9 +3,6 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { mkdirSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
-// s3rver ships no types.
-// @ts-expect-error untyped package
-import S3rver from "s3rver";
 
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -37,17 +34,16 @@ export interface RunningService {
   stop(): Promise<void>;
 }
 
-export async function startS3Fake(options: { dir: string; port: number; bucket: string }): Promise<RunningService> {
+/** s3rver in its own process, so it has a core of its own while the seed uploads certificates. */
+export async function startS3Fake(options: { dir: string; port: number; bucket: string; root: string }): Promise<RunningService> {
   mkdirSync(options.dir, { recursive: true });
-  const server = new S3rver({
-    port: options.port,
-    address: "127.0.0.1",
-    silent: true,
-    directory: options.dir,
-    configureBuckets: [{ name: options.bucket }],
-  });
-  await server.run();
-  return { stop: () => server.close() };
+  const child = spawn(
+    path.join(options.root, "node_modules", ".bin", "s3rver"),
+    ["-d", options.dir, "-a", "127.0.0.1", "-p", String(options.port), "--silent", "--configure-bucket", options.bucket],
+    { detached: true, stdio: "ignore" },
+  );
+  await waitForPort(options.port);
+  return { stop: () => stopChild(child) };
 }
 
 function stopChild(child: ChildProcess): Promise<void> {

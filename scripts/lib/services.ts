@@ -50,6 +50,7 @@ export async function startServices(options: ServiceOptions): Promise<RunningSer
       dir: path.join(options.dataDir, "s3"),
       port: options.s3Port,
       bucket: S3_BUCKET,
+      root: projectRoot,
     });
     stoppers.push(() => s3.stop());
     const mail = await startMailFake({
@@ -109,6 +110,8 @@ export async function seedDemoOnce(env: Record<string, string>, log: (m: string)
       return;
     }
     const started = Date.now();
+    // The seeds store demo certificates in the S3 fake, so they need its address.
+    Object.assign(process.env, env);
     await knex.seed.run();
     log(`demo data seeded in ${((Date.now() - started) / 1000).toFixed(1)} s`);
   } finally {

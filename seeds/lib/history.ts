@@ -257,7 +257,7 @@ export function simulateHistory(userIds: { technician: string; inspector: string
         const layout = layouts.get(aircraft.typeId)!;
         const position = layout.find((p) => positionIds.get(`${aircraft.typeId}:${p.code}`) === positionId)!;
         const swapMs = dayStart + (5 * 60 + Math.floor(random() * 90)) * 60_000;
-        const swapId = `swap-${String(swaps.length + 1).padStart(5, "0")}`;
+        const swapId = `00000000-0000-4000-8000-${String(swaps.length + 1).padStart(12, "0")}`;
         const removedSeq = remove(unit, swapMs, removalType, reason);
         // The spare: a serviceable unit of an eligible part number, else a new receipt.
         let spare = units.find((u) => u.status === "serviceable" && position.eligible.includes(u.pn.key));

@@ -33,7 +33,7 @@ export const AREA_ROLES: Record<Area, readonly Role[]> = {
   home: everyone,
   fleet: everyone,
   parts: everyone,
-  swap: ["technician", "inspector", "admin"],
+  swap: ["technician", "inspector"],
   receiving: ["stores", "admin"],
   stock: ["stores", "inspector", "auditor", "admin"],
   removals: ["reliability", "auditor", "admin"],

@@ -34,6 +34,7 @@ export async function setup(project: TestProject) {
     log,
   });
   await migrate(services.env);
+  Object.assign(process.env, services.env);
   const knex = appKnex(services.env);
   try {
     await knex.seed.run();

@@ -1,0 +1,221 @@
+import "server-only";
+import type { Knex } from "knex";
+import { carryOver, remainingLife, ageInDays, type PartTotals } from "@/domain/life";
+import { formatFlightTime } from "@/domain/flight-time";
+import type { SwapCheckInput, UnitRef } from "@/lib/schemas/swaps";
+import type { SwapCheck } from "@/lib/swap-types";
+import { AppError } from "./errors";
+
+// What a swap rests on, read (and, when recording, locked) in one place, so the pre-install check the
+// technician sees and the transaction that records the swap apply exactly the same rules.
+
+export type { CheckLevel, SwapCheck } from "@/lib/swap-types";
+
+export interface SwapPlan {
+  aircraft: { id: number; registration: string; typeId: number };
+  position: { id: number; code: string; label: string; requiresInspection: boolean; ataChapter: string };
+  fitted: null | {
+    partId: number;
+    installedSeq: number;
+    hostMinutes: number;
+    hostCycles: number;
+    part: PartTotals;
+    partNumber: string;
+    serialNumber: string;
+    cage: string;
+  };
+  removedUnit: null | { id: number; partNumber: string; serialNumber: string; totals: PartTotals };
+  installedUnit: null | { id: number; partNumber: string; serialNumber: string; cage: string; totals: PartTotals; documentId: number | null };
+  latestSnapshot: { asOf: Date; minutes: number; cycles: number } | null;
+  checks: SwapCheck[];
+}
+
+const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+
+async function findUnit(trx: Knex | Knex.Transaction, ref: UnitRef, lock: boolean) {
+  const query = trx("parts as pt")
+    .join("part_numbers as pn", "pn.id", "pt.part_number_id")
+    .where("pn.part_number", ref.partNumber.toUpperCase())
+    .andWhere("pt.serial_number", ref.serialNumber.toUpperCase())
+    .select("pt.*", "pn.part_number", "pn.cage", "pn.life_limit_minutes", "pn.life_limit_cycles", "pn.life_limit_days", "pn.id as pn_id");
+  if (ref.cage) query.andWhere("pn.cage", ref.cage.toUpperCase());
+  const rows = lock ? await query.forUpdate() : await query;
+  if (rows.length > 1) {
+    throw new AppError("invalid", `Several units are P/N ${ref.partNumber} S/N ${ref.serialNumber}; give the CAGE code to say which.`, "invalid", { cage: "needed to tell the units apart" });
+  }
+  return rows[0] ?? null;
+}
+
+const totalsOfRow = (row: Record<string, unknown>): PartTotals => ({
+  tsnMinutes: Number(row.tsn_minutes),
+  csn: Number(row.csn),
+  tsoMinutes: num(row.tso_minutes),
+  cso: num(row.cso),
+});
+
+/**
+ * Reads the state a swap rests on and judges it. With `lock`, the aircraft row, the installed unit and
+ * the fitted row are locked for the caller's transaction (aircraft first, then parts: one order for all
+ * writers, so two swaps never wait on each other in a circle).
+ */
+export async function planSwap(trx: Knex | Knex.Transaction, input: SwapCheckInput, options: { lock: boolean; now: Date }): Promise<SwapPlan> {
+  const lock = options.lock;
+  const aircraftQuery = trx("aircraft").where({ registration: input.registration }).first("id", "registration", "aircraft_type_id");
+  const aircraft = lock ? await aircraftQuery.forUpdate() : await aircraftQuery;
+  if (!aircraft) throw new AppError("not_found", `Aircraft ${input.registration} is not in the fleet.`);
+  const position = await trx("positions").where({ aircraft_type_id: aircraft.aircraft_type_id, code: input.positionCode.toUpperCase() }).first();
+  if (!position) {
+    throw new AppError("invalid", `${input.registration} has no position ${input.positionCode}.`, "invalid", { positionCode: `no such position on ${input.registration}` });
+  }
+
+  const fittedRow = await trx("fitted as f")
+    .join("parts as pt", "pt.id", "f.part_id")
+    .join("part_numbers as pn", "pn.id", "pt.part_number_id")
+    .where({ "f.aircraft_id": aircraft.id, "f.position_id": position.id })
+    .first("f.*", "pt.serial_number", "pn.part_number", "pn.cage");
+  const latest = await trx("utilization").where({ aircraft_id: aircraft.id }).orderBy("as_of", "desc").first();
+
+  const checks: SwapCheck[] = [];
+  const plan: SwapPlan = {
+    aircraft: { id: aircraft.id, registration: aircraft.registration, typeId: aircraft.aircraft_type_id },
+    position: {
+      id: position.id,
+      code: position.code,
+      label: position.label,
+      requiresInspection: Boolean(position.requires_independent_inspection),
+      ataChapter: position.ata_chapter,
+    },
+    fitted: fittedRow
+      ? {
+          partId: fittedRow.part_id,
+          installedSeq: Number(fittedRow.installed_seq),
+          hostMinutes: Number(fittedRow.aircraft_minutes_at_install),
+          hostCycles: Number(fittedRow.aircraft_cycles_at_install),
+          part: {
+            tsnMinutes: Number(fittedRow.tsn_minutes_at_install),
+            csn: Number(fittedRow.csn_at_install),
+            tsoMinutes: num(fittedRow.tso_minutes_at_install),
+            cso: num(fittedRow.cso_at_install),
+          },
+          partNumber: fittedRow.part_number,
+          serialNumber: fittedRow.serial_number,
+          cage: fittedRow.cage,
+        }
+      : null,
+    removedUnit: null,
+    installedUnit: null,
+    latestSnapshot: latest ? { asOf: new Date(latest.as_of), minutes: Number(latest.total_minutes), cycles: Number(latest.total_cycles) } : null,
+    checks,
+  };
+
+  // The snapshot: never below the last one recorded, nor below the fitted unit's installation.
+  if (plan.latestSnapshot && (input.aircraftHours < plan.latestSnapshot.minutes || input.aircraftCycles < plan.latestSnapshot.cycles)) {
+    checks.push({
+      name: "snapshot",
+      level: "fail",
+      code: "time_regression",
+      message: `The aircraft already shows ${formatFlightTime(plan.latestSnapshot.minutes)} and ${plan.latestSnapshot.cycles} cycles (${plan.latestSnapshot.asOf.toISOString()}); the snapshot cannot be lower.`,
+    });
+  } else if (plan.fitted && (input.aircraftHours < plan.fitted.hostMinutes || input.aircraftCycles < plan.fitted.hostCycles)) {
+    checks.push({ name: "snapshot", level: "fail", code: "time_regression", message: `The fitted unit was installed at ${formatFlightTime(plan.fitted.hostMinutes)} and ${plan.fitted.hostCycles} cycles; the snapshot cannot be lower.` });
+  } else {
+    checks.push({ name: "snapshot", level: "ok", message: `Snapshot ${formatFlightTime(input.aircraftHours)} h and ${input.aircraftCycles} cycles follows the last one recorded.` });
+  }
+
+  // The off part must be the unit Threadline has fitted here.
+  if (input.removed) {
+    const sameUnit =
+      plan.fitted &&
+      plan.fitted.partNumber === input.removed.partNumber.toUpperCase() &&
+      plan.fitted.serialNumber === input.removed.serialNumber.toUpperCase() &&
+      (!input.removed.cage || plan.fitted.cage === input.removed.cage.toUpperCase());
+    if (!plan.fitted) {
+      checks.push({ name: "off part", level: "fail", code: "position_mismatch", message: `Threadline has nothing fitted at ${position.code}, so S/N ${input.removed.serialNumber} cannot come off it. Check the position; if the unit really is there, report the discrepancy.` });
+    } else if (!sameUnit) {
+      checks.push({
+        name: "off part",
+        level: "fail",
+        code: "position_mismatch",
+        message: `Threadline has P/N ${plan.fitted.partNumber} S/N ${plan.fitted.serialNumber} fitted at ${position.code}, not P/N ${input.removed.partNumber} S/N ${input.removed.serialNumber}. Check you are at the right position; if the unit on the aircraft differs from the record, report the discrepancy.`,
+      });
+    } else {
+      const totals = carryOver({ part: plan.fitted.part, host: { minutes: plan.fitted.hostMinutes, cycles: plan.fitted.hostCycles } }, { minutes: Math.max(input.aircraftHours, plan.fitted.hostMinutes), cycles: Math.max(input.aircraftCycles, plan.fitted.hostCycles) });
+      plan.removedUnit = { id: plan.fitted.partId, partNumber: plan.fitted.partNumber, serialNumber: plan.fitted.serialNumber, totals };
+      checks.push({ name: "off part", level: "ok", message: `S/N ${plan.fitted.serialNumber} is the unit on record at ${position.code}.` });
+    }
+  } else if (plan.fitted && input.installed) {
+    checks.push({ name: "off part", level: "fail", code: "position_mismatch", message: `P/N ${plan.fitted.partNumber} S/N ${plan.fitted.serialNumber} is fitted at ${position.code}: scan it as the off part before installing another.` });
+  }
+
+  if (input.installed) await judgeInstalledUnit(trx, input.installed, plan, { lock, now: options.now });
+  return plan;
+}
+
+async function judgeInstalledUnit(trx: Knex | Knex.Transaction, ref: UnitRef, plan: SwapPlan, options: { lock: boolean; now: Date }) {
+  const checks = plan.checks;
+  const unit = await findUnit(trx, ref, options.lock);
+  if (!unit) {
+    checks.push({ name: "on part", level: "fail", code: "part_not_serviceable", message: `No unit P/N ${ref.partNumber} S/N ${ref.serialNumber} is on record. Stores must receive it with its release certificate first.` });
+    return;
+  }
+  const totals = totalsOfRow(unit);
+  plan.installedUnit = { id: unit.id, partNumber: unit.part_number, serialNumber: unit.serial_number, cage: unit.cage, totals, documentId: null };
+
+  // Eligible: the position lists the P/N, or an alternate that the P/N may replace.
+  const eligible = await trx("position_eligibility as pe")
+    .where("pe.position_id", plan.position.id)
+    .andWhere((where) =>
+      where
+        .where("pe.part_number_id", unit.pn_id)
+        .orWhereExists(trx("part_interchange as pi").whereRaw("pi.part_number_id = pe.part_number_id").andWhere("pi.alternate_part_number_id", unit.pn_id))
+        .orWhereExists(trx("part_interchange as pi").whereRaw("pi.alternate_part_number_id = pe.part_number_id").andWhere("pi.part_number_id", unit.pn_id).andWhere("pi.two_way", true)),
+    )
+    .first("pe.part_number_id");
+  checks.push(
+    eligible
+      ? { name: "eligibility", level: "ok", message: `P/N ${unit.part_number} is eligible at ${plan.position.code}.` }
+      : { name: "eligibility", level: "fail", code: "not_eligible", message: `P/N ${unit.part_number} is not eligible at ${plan.position.code} (${plan.position.label}), nor an approved alternate of an eligible P/N.` },
+  );
+
+  const fittedElsewhere = await trx("fitted as f").join("aircraft as a", "a.id", "f.aircraft_id").join("positions as p", "p.id", "f.position_id").where("f.part_id", unit.id).first("a.registration", "p.code");
+  if (fittedElsewhere) {
+    checks.push({ name: "status", level: "fail", code: "part_fitted_elsewhere", message: `S/N ${unit.serial_number} is recorded as fitted on ${fittedElsewhere.registration} at ${fittedElsewhere.code}. It must be removed there first.` });
+  } else if (unit.status !== "serviceable") {
+    const word = String(unit.status).replace("_", " ");
+    checks.push({ name: "status", level: "fail", code: "part_not_serviceable", message: `S/N ${unit.serial_number} is ${word}, not serviceable.${unit.status === "quarantined" ? " Ask quality to release it before installing." : " Only a serviceable unit may be fitted."}` });
+  } else {
+    checks.push({ name: "status", level: "ok", message: `S/N ${unit.serial_number} is serviceable.` });
+  }
+
+  // A release certificate on file: the unit's latest receipt or return from repair cites a document.
+  const lastRelease = await trx("ledger_entries").where({ part_id: unit.id }).whereIn("kind", ["received", "repaired"]).orderBy("seq", "desc").first("seq", "document_id");
+  plan.installedUnit.documentId = lastRelease?.document_id ?? null;
+  checks.push(
+    lastRelease?.document_id
+      ? { name: "certificate", level: "ok", message: "A release certificate is on file for this unit." }
+      : { name: "certificate", level: "fail", code: "part_not_serviceable", message: `No release certificate is on file for S/N ${unit.serial_number}. Stores must attach the certificate before it can be fitted.` },
+  );
+
+  const life = remainingLife(
+    { minutes: num(unit.life_limit_minutes), cycles: num(unit.life_limit_cycles), days: num(unit.life_limit_days) },
+    { tsnMinutes: totals.tsnMinutes, csn: totals.csn, ageDays: unit.manufactured_on ? ageInDays(new Date(unit.manufactured_on), options.now) : null },
+  );
+  const limits = [
+    life.minutes ? `${formatFlightTime(Math.max(0, life.minutes.remaining))} h of ${formatFlightTime(life.minutes.limit)}` : null,
+    life.cycles ? `${Math.max(0, life.cycles.remaining)} of ${life.cycles.limit} cycles` : null,
+    life.days ? `${Math.max(0, life.days.remaining)} of ${life.days.limit} days` : null,
+  ].filter(Boolean);
+  if (life.status === "exceeded") {
+    checks.push({ name: "life", level: "fail", code: "life_exceeded", message: `S/N ${unit.serial_number} has reached a life limit (remaining: ${limits.join(", ")}). It may not be fitted.` });
+  } else if (life.status === "near") {
+    checks.push({ name: "life", level: "warn", message: `S/N ${unit.serial_number} is within 10% of a life limit (remaining: ${limits.join(", ")}).` });
+  } else {
+    checks.push({ name: "life", level: "ok", message: limits.length ? `Life left: ${limits.join(", ")}.` : "No life limit on this part number." });
+  }
+}
+
+/** The first refusal, as the 409 the contract names. */
+export function firstFailure(plan: SwapPlan): AppError | null {
+  const failed = plan.checks.find((c) => c.level === "fail");
+  return failed ? new AppError("conflict", failed.message, failed.code ?? "conflict") : null;
+}

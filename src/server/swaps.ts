@@ -1,0 +1,280 @@
+import "server-only";
+import { createHash, randomUUID } from "node:crypto";
+import type { Knex } from "knex";
+import type { User } from "lucia";
+import { formatFlightTime } from "@/domain/flight-time";
+import type { SwapCheckInput, SwapInput } from "@/lib/schemas/swaps";
+import { db } from "./db";
+import { AppError } from "./errors";
+import { appendLedgerEntries, type AppendedEntry } from "./ledger";
+import { kickOutbox, queueMail } from "./mail";
+import type { SwapCheck } from "@/lib/swap-types";
+import { firstFailure, planSwap } from "./swap-checks";
+
+export interface SwapResult {
+  status: 201;
+  body: {
+    swap: {
+      id: string;
+      registration: string;
+      positionCode: string;
+      performedAt: string;
+      performedBy: { id: string; name: string; licenceNumber: string | null };
+      inspectionRequired: boolean;
+      status: "complete" | "awaiting_inspection";
+      removed: { partId: number; partNumber: string; serialNumber: string; tsn: string; csn: number } | null;
+      installed: { partId: number; partNumber: string; serialNumber: string; tsn: string; csn: number } | null;
+    };
+    entries: AppendedEntry[];
+  };
+}
+
+/** A stable digest of the request, so a reused Idempotency-Key with a different body is caught. */
+export function requestDigest(raw: unknown): string {
+  const canonical = (value: unknown): unknown =>
+    Array.isArray(value)
+      ? value.map(canonical)
+      : value && typeof value === "object"
+        ? Object.fromEntries(Object.keys(value as object).sort().map((k) => [k, canonical((value as Record<string, unknown>)[k])]))
+        : value;
+  return createHash("sha256").update(JSON.stringify(canonical(raw))).digest("hex");
+}
+
+function licenceRefusal(user: User, now: Date): AppError | null {
+  if (!user.licenceExpiresOn) return null;
+  if (user.licenceExpiresOn < now.toISOString().slice(0, 10)) {
+    return new AppError("conflict", `Your licence/authorisation ${user.licenceNumber ?? ""} expired on ${user.licenceExpiresOn}; you cannot sign maintenance records until it is renewed.`, "licence_expired");
+  }
+  return null;
+}
+
+async function storedAnswer(trx: Knex | Knex.Transaction, key: string, digest: string, lock: boolean): Promise<SwapResult | null> {
+  const query = trx("swaps").where({ idempotency_key: key }).first("request_hash", "response");
+  const row = lock ? await query.forShare() : await query;
+  if (!row) return null;
+  if (row.request_hash !== digest) {
+    throw new AppError("invalid", "This Idempotency-Key was already used for a different swap. Use a new key for a new swap.", "idempotency_key_reused", {
+      "Idempotency-Key": "already used with a different body",
+    });
+  }
+  return { status: 201, body: JSON.parse(row.response) };
+}
+
+const RETRYABLE = new Set(["ER_LOCK_DEADLOCK", "ER_LOCK_WAIT_TIMEOUT", "ER_CHECKREAD"]);
+
+/**
+ * Records one off/on change as one transaction: lock and check the current state, then write
+ * fitted, parts, mail and finally both ledger entries (the head lock is taken last and held briefly).
+ * A retry with the same Idempotency-Key returns the first answer.
+ */
+export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; idempotencyKey: string; actor: User; now?: Date }): Promise<SwapResult> {
+  const now = input.now ?? new Date();
+  const digest = requestDigest(input.rawBody);
+  const earlier = await storedAnswer(db(), input.idempotencyKey, digest, false);
+  if (earlier) return earlier;
+  const licence = licenceRefusal(input.actor, now);
+  if (licence) throw licence;
+  if (input.swap.performedAt.getTime() > now.getTime() + 5 * 60_000) {
+    throw new AppError("invalid", "The swap cannot be dated in the future.", "invalid", { performedAt: "is in the future" });
+  }
+
+  for (let attempt = 1; ; attempt++) {
+    try {
+      const result = await db().transaction((trx) => writeSwap(trx, input, digest, now));
+      kickOutbox();
+      return result;
+    } catch (error) {
+      const code = (error as { code?: string }).code;
+      if (code === "ER_DUP_ENTRY" && String((error as Error).message).includes("idempotency_key")) {
+        const answer = await storedAnswer(db(), input.idempotencyKey, digest, false);
+        if (answer) return answer;
+      }
+      // Deadlocks and (on a Galera cluster) certification failures are safe to retry: nothing was written.
+      if (code && RETRYABLE.has(code) && attempt < 4) continue;
+      throw error;
+    }
+  }
+}
+
+async function writeSwap(trx: Knex.Transaction, input: { swap: SwapInput; idempotencyKey: string; actor: User }, digest: string, now: Date): Promise<SwapResult> {
+  const { swap, actor } = input;
+  const plan = await planSwap(trx, swap, { lock: true, now });
+  // A concurrent request with the same key may have committed while we waited for the aircraft lock.
+  const raced = await storedAnswer(trx, input.idempotencyKey, digest, true);
+  if (raced) return raced;
+  const refusal = firstFailure(plan);
+  if (refusal) throw refusal;
+
+  const performedAt = swap.performedAt;
+  const common = {
+    aircraftId: plan.aircraft.id,
+    positionId: plan.position.id,
+    occurredAt: performedAt.toISOString(),
+    recordedBy: actor.id,
+    aircraftMinutes: swap.aircraftHours,
+    aircraftCycles: swap.aircraftCycles,
+    workOrder: swap.workOrder,
+    taskReference: swap.taskReference,
+    documentId: null,
+    correctsSeq: null,
+  };
+
+  if (plan.removedUnit) {
+    await trx("fitted").where({ aircraft_id: plan.aircraft.id, position_id: plan.position.id }).delete();
+    await trx("parts").where({ id: plan.removedUnit.id }).update({
+      status: "unserviceable",
+      bin: null,
+      tsn_minutes: plan.removedUnit.totals.tsnMinutes,
+      csn: plan.removedUnit.totals.csn,
+      tso_minutes: plan.removedUnit.totals.tsoMinutes,
+      cso: plan.removedUnit.totals.cso,
+      updated_at: now,
+    });
+  }
+  if (plan.installedUnit) {
+    const totals = plan.installedUnit.totals;
+    await trx("parts").where({ id: plan.installedUnit.id }).update({ status: "installed", bin: null, updated_at: now });
+    await trx("fitted").insert({
+      aircraft_id: plan.aircraft.id,
+      position_id: plan.position.id,
+      part_id: plan.installedUnit.id,
+      installed_seq: 0, // set below once the ledger has numbered the entry
+      installed_at: performedAt,
+      aircraft_minutes_at_install: swap.aircraftHours,
+      aircraft_cycles_at_install: swap.aircraftCycles,
+      tsn_minutes_at_install: totals.tsnMinutes,
+      csn_at_install: totals.csn,
+      tso_minutes_at_install: totals.tsoMinutes,
+      cso_at_install: totals.cso,
+    });
+  }
+  // The snapshot becomes the aircraft's newest utilisation when it is newer than the last one.
+  if (!plan.latestSnapshot || performedAt > plan.latestSnapshot.asOf) {
+    await trx("utilization").insert({ aircraft_id: plan.aircraft.id, as_of: performedAt, total_minutes: swap.aircraftHours, total_cycles: swap.aircraftCycles, recorded_by: actor.id, recorded_at: now });
+  }
+
+  if (plan.removedUnit && swap.removalType === "unscheduled") {
+    const engineers = await trx("users").where({ role: "reliability", status: "active" }).select("email");
+    await queueMail(
+      trx,
+      engineers.map((e) => ({
+        to: e.email,
+        subject: `Unscheduled removal: ${plan.removedUnit!.partNumber} S/N ${plan.removedUnit!.serialNumber} from ${plan.aircraft.registration} ${plan.position.code}`,
+        text: [
+          `An unscheduled removal was recorded in Threadline.`,
+          ``,
+          `Aircraft: ${plan.aircraft.registration}, position ${plan.position.code} (${plan.position.label}), ATA ${plan.position.ataChapter}`,
+          `Removed: P/N ${plan.removedUnit!.partNumber} S/N ${plan.removedUnit!.serialNumber}, TSN ${formatFlightTime(plan.removedUnit!.totals.tsnMinutes)}, CSN ${plan.removedUnit!.totals.csn}`,
+          `Reason: ${swap.reason}`,
+          `When: ${performedAt.toISOString()} at ${formatFlightTime(swap.aircraftHours)} aircraft hours, ${swap.aircraftCycles} cycles`,
+          `Work order: ${swap.workOrder}; task ${swap.taskReference}`,
+          `Recorded by: ${actor.name}${actor.licenceNumber ? ` (${actor.licenceNumber})` : ""}`,
+        ].join("\n"),
+      })),
+    );
+  }
+
+  const entries = await appendLedgerEntries(trx, [
+    ...(plan.removedUnit
+      ? [{
+          ...common,
+          kind: "removed" as const,
+          partId: plan.removedUnit.id,
+          tsnMinutes: plan.removedUnit.totals.tsnMinutes,
+          csn: plan.removedUnit.totals.csn,
+          tsoMinutes: plan.removedUnit.totals.tsoMinutes,
+          cso: plan.removedUnit.totals.cso,
+          removalType: swap.removalType ?? null,
+          reason: swap.reason ?? null,
+          testResult: null,
+          details: null,
+        }]
+      : []),
+    ...(plan.installedUnit
+      ? [{
+          ...common,
+          kind: "installed" as const,
+          partId: plan.installedUnit.id,
+          tsnMinutes: plan.installedUnit.totals.tsnMinutes,
+          csn: plan.installedUnit.totals.csn,
+          tsoMinutes: plan.installedUnit.totals.tsoMinutes,
+          cso: plan.installedUnit.totals.cso,
+          removalType: null,
+          reason: null,
+          testResult: swap.testResult ?? null,
+          documentId: plan.installedUnit.documentId,
+          details: null,
+        }]
+      : []),
+  ]);
+  const removedSeq = plan.removedUnit ? entries[0].seq : null;
+  const installedSeq = plan.installedUnit ? entries[entries.length - 1].seq : null;
+  if (installedSeq) await trx("fitted").where({ aircraft_id: plan.aircraft.id, position_id: plan.position.id }).update({ installed_seq: installedSeq });
+
+  const id = randomUUID();
+  const result: SwapResult = {
+    status: 201,
+    body: {
+      swap: {
+        id,
+        registration: plan.aircraft.registration,
+        positionCode: plan.position.code,
+        performedAt: performedAt.toISOString(),
+        performedBy: { id: actor.id, name: actor.name, licenceNumber: actor.licenceNumber },
+        inspectionRequired: plan.position.requiresInspection,
+        status: plan.position.requiresInspection ? "awaiting_inspection" : "complete",
+        removed: plan.removedUnit
+          ? { partId: plan.removedUnit.id, partNumber: plan.removedUnit.partNumber, serialNumber: plan.removedUnit.serialNumber, tsn: formatFlightTime(plan.removedUnit.totals.tsnMinutes), csn: plan.removedUnit.totals.csn }
+          : null,
+        installed: plan.installedUnit
+          ? { partId: plan.installedUnit.id, partNumber: plan.installedUnit.partNumber, serialNumber: plan.installedUnit.serialNumber, tsn: formatFlightTime(plan.installedUnit.totals.tsnMinutes), csn: plan.installedUnit.totals.csn }
+          : null,
+      },
+      entries,
+    },
+  };
+  await trx("swaps").insert({
+    id,
+    idempotency_key: input.idempotencyKey,
+    request_hash: digest,
+    aircraft_id: plan.aircraft.id,
+    position_id: plan.position.id,
+    removed_seq: removedSeq,
+    installed_seq: installedSeq,
+    performed_by: actor.id,
+    inspected_by: null,
+    performed_at: performedAt,
+    inspected_at: null,
+    response: JSON.stringify(result.body),
+    created_at: now,
+  });
+  return result;
+}
+
+/** The pre-install checks the technician sees before anything is written (no locks, no writes). */
+export async function checkSwap(swap: SwapCheckInput, now = new Date()): Promise<{ checks: SwapCheck[]; ok: boolean; fitted: { partNumber: string; serialNumber: string; cage: string } | null }> {
+  const plan = await planSwap(db(), swap, { lock: false, now });
+  return {
+    checks: plan.checks,
+    ok: !plan.checks.some((c) => c.level === "fail"),
+    fitted: plan.fitted ? { partNumber: plan.fitted.partNumber, serialNumber: plan.fitted.serialNumber, cage: plan.fitted.cage } : null,
+  };
+}
+
+/** An inspector's countersignature of a swap at a position that requires an independent inspection. */
+export async function countersignSwap(input: { swapId: string; inspector: User; now?: Date }) {
+  const now = input.now ?? new Date();
+  const licence = licenceRefusal(input.inspector, now);
+  if (licence) throw licence;
+  return db().transaction(async (trx) => {
+    const row = await trx("swaps as s").join("positions as p", "p.id", "s.position_id").where("s.id", input.swapId).forUpdate().first("s.*", "p.requires_independent_inspection");
+    if (!row) throw new AppError("not_found", `Swap ${input.swapId} was not found.`);
+    if (!row.requires_independent_inspection) throw new AppError("conflict", "This position does not require an independent inspection.", "inspection_not_required");
+    if (row.inspected_by) throw new AppError("conflict", "This swap has already been countersigned.", "already_inspected");
+    if (row.performed_by === input.inspector.id) {
+      throw new AppError("conflict", "The independent inspection must be made by someone other than the technician who did the work.", "inspector_is_performer");
+    }
+    await trx("swaps").where({ id: input.swapId }).update({ inspected_by: input.inspector.id, inspected_at: now });
+    return { swap: { id: input.swapId, status: "complete", inspectedBy: { id: input.inspector.id, name: input.inspector.name, licenceNumber: input.inspector.licenceNumber }, inspectedAt: now.toISOString() } };
+  });
+}
