@@ -24,8 +24,9 @@ export interface LabelImageOptions {
   /**
    * Image pixels per module (narrow bar or matrix cell), at most; the largest that still fits the frame
    * is used. bwip-js draws a linear module 1 px wide and a 2D module 2 px wide at scale 1, and takes
-   * whole scales only, so 2D symbols get even sizes. Default 2: a format 06 message in Code 128 is
-   * about 480 modules wide, and 3 px would not fit in 1280.
+   * whole scales only, so 2D symbols get even sizes. Defaults: 2 for Code 128 (a format 06 message is
+   * about 480 modules wide, 3 px would not fit in 1280); 4 for Data Matrix and QR, because a Data Matrix
+   * at 2 px per cell did not decode from the fake camera here while 4 and 6 did.
    */
   modulePixels?: number;
 }
@@ -66,7 +67,8 @@ async function renderAtScale(options: LabelImageOptions, scale: number): Promise
 /** A label PNG that fits the fake camera frame, at the largest module size up to `modulePixels`. */
 export async function renderLabelPng(options: LabelImageOptions): Promise<LabelImage> {
   const pixelsPerModuleAtScale1 = options.symbology === "code128" ? 1 : 2;
-  const maxScale = Math.max(1, Math.floor((options.modulePixels ?? 2) / pixelsPerModuleAtScale1));
+  const modulePixels = options.modulePixels ?? (options.symbology === "code128" ? 2 : 4);
+  const maxScale = Math.max(1, Math.floor(modulePixels / pixelsPerModuleAtScale1));
   for (let scale = maxScale; scale >= 1; scale--) {
     const image = await renderAtScale(options, scale);
     if (image.width <= FRAME.width && image.height <= FRAME.height) return image;

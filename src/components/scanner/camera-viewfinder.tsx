@@ -54,11 +54,11 @@ export function CameraViewfinder({ elementId, status }: { elementId: string; sta
       >
         {/* html5-qrcode owns this element's children. Its "Scanner paused" banner would be unreadably
             small after scaling; the frozen picture and the confirmation say the same. */}
-        <div id={elementId} ref={surfaceRef} style={{ width: SURFACE_WIDTH }} className="[&>div:not([id])]:hidden!" />
+        <div id={elementId} ref={surfaceRef} data-testid="camera-surface" style={{ width: SURFACE_WIDTH }} className="[&>div:not([id])]:hidden!" />
       </div>
       {status === "starting" ? (
         <p className="absolute inset-0 flex items-center justify-center p-4 text-center text-lg font-semibold text-white">
-          Starting the camera…
+          Starting the camera… If the browser asks, allow it.
         </p>
       ) : null}
     </div>

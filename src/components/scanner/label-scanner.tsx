@@ -3,7 +3,7 @@
 // Reads one part label at the aircraft: live camera (Code 128, Data Matrix, QR), a photo, or typed /
 // wedge-scanned text. Each reading is parsed at once and shown for the user to accept or redo; only
 // an accepted reading reaches `onResult`. Load it through LazyLabelScanner, not directly.
-import { useCallback, useId, useState } from "react";
+import { useCallback, useId, useRef, useState } from "react";
 import { CameraViewfinder } from "./camera-viewfinder";
 import { readDecodedLabel, readTypedLabel, type DecodedText, type LabelScan } from "./label-scan";
 import { ManualLabelEntry } from "./manual-label-entry";
@@ -33,6 +33,7 @@ export function LabelScanner({ label, onResult, onCancel }: LabelScannerProps) {
   const headingId = `${id}-heading`;
   const [pending, setPending] = useState<LabelScan | null>(null);
   const [accepted, setAccepted] = useState(false);
+  const headingRef = useRef<HTMLHeadingElement>(null);
 
   const show = useCallback((scan: LabelScan) => {
     if (scan.source !== "typed") buzz();
@@ -49,20 +50,25 @@ export function LabelScanner({ label, onResult, onCancel }: LabelScannerProps) {
     setAccepted(true); // stops the camera
     onResult(pending);
   };
+  const rescan = () => {
+    setPending(null);
+    headingRef.current?.focus(); // the buttons that had focus are going away
+  };
 
   return (
     <section aria-labelledby={headingId} className="panel space-y-4 p-3 text-lg sm:p-4">
-      <h2 id={headingId} className="text-2xl font-bold">
+      <h2 id={headingId} ref={headingRef} tabIndex={-1} className="text-2xl font-bold">
         {label}
       </h2>
 
-      <div aria-live="polite">
+      {/* No live region here: ScanReading takes focus, which announces it. */}
+      <div>
         {accepted ? (
-          <p className="font-semibold">
+          <p role="status" className="font-semibold">
             <span aria-hidden="true">✓ </span>Label accepted.
           </p>
         ) : pending ? (
-          <ScanReading scan={pending} onAccept={accept} onRescan={() => setPending(null)} />
+          <ScanReading scan={pending} onAccept={accept} onRescan={rescan} />
         ) : null}
       </div>
 

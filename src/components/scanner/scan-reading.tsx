@@ -13,11 +13,11 @@ function whereFrom(scan: LabelScan): string {
   return symbology ? `${symbology}, read from the ${SOURCE_NAMES[scan.source]}` : `From the ${SOURCE_NAMES[scan.source]}`;
 }
 
-function Field({ term, value, testId }: { term: string; value: string | null; testId: string }) {
+function Field({ term, value, testId, code = true }: { term: string; value: string | null; testId: string; code?: boolean }) {
   return (
-    <div className="grid grid-cols-[6.5rem_1fr] items-baseline gap-2 py-1">
+    <div className="grid grid-cols-[5rem_1fr] items-baseline gap-2 py-1">
       <dt className="font-semibold">{term}</dt>
-      <dd data-testid={testId} className={value ? "num break-all text-xl font-bold" : "italic"}>
+      <dd data-testid={testId} className={!value ? "italic" : code ? "num break-all text-xl font-bold" : ""}>
         {value ?? "not on the label"}
       </dd>
     </div>
@@ -68,6 +68,7 @@ export function ScanReading({
               term="Syntax"
               value={`${SYNTAX_NAMES[parsed.syntax] ?? parsed.syntax}${parsed.format ? `, format ${parsed.format}` : ""}`}
               testId="reading-syntax"
+              code={false}
             />
           </dl>
           {parsed.inferredSeparators ? (
@@ -100,7 +101,7 @@ export function ScanReading({
       )}
 
       <details className="mt-3">
-        <summary className="flex min-h-glove cursor-pointer items-center font-semibold">What the scanner sent</summary>
+        <summary className="min-h-glove cursor-pointer py-2 font-semibold">Exact text received</summary>
         <p className="num break-all rounded bg-[var(--page)] p-2">{showControlCharacters(scan.raw)}</p>
       </details>
 

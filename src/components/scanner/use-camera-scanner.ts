@@ -51,11 +51,12 @@ export function createDecoder(elementId: string): Html5Qrcode {
 }
 
 async function stopQuietly(scanner: Html5Qrcode | null): Promise<void> {
-  if (!scanner?.isScanning) return;
+  // Not `isScanning`: that turns true only when the video plays, and a camera opened just before
+  // unmount must be released too. stop() releases the tracks first, then throws if it had not started.
   try {
-    await scanner.stop();
+    await scanner?.stop();
   } catch {
-    // Already stopped or never got as far as rendering: nothing is left to release.
+    // Never started, or already stopped: nothing is left to release.
   }
 }
 

@@ -1,11 +1,14 @@
 "use client";
 
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { LazyLabelScanner, type LabelScan } from "@/components/scanner/lazy-label-scanner";
 
 export function LabelCheck() {
   const [open, setOpen] = useState(false);
   const [result, setResult] = useState<LabelScan | null>(null);
+  const resultHeadingRef = useRef<HTMLHeadingElement>(null);
+  // The scanner that had focus is gone once a reading is accepted: focus goes to what it gave.
+  useEffect(() => resultHeadingRef.current?.focus(), [result]);
 
   return (
     <div className="space-y-4">
@@ -26,7 +29,7 @@ export function LabelCheck() {
 
       {result ? (
         <section aria-labelledby="label-check-result" className="panel space-y-2 p-4">
-          <h2 id="label-check-result" className="text-lg font-semibold">
+          <h2 id="label-check-result" ref={resultHeadingRef} tabIndex={-1} className="text-lg font-semibold">
             Accepted reading
           </h2>
           <p>What a swap would receive from this label:</p>
