@@ -152,8 +152,9 @@ export function simulateHistory(userIds: { technician: string; inspector: string
       install(unit, aircraft.id, positionIds.get(`${aircraft.typeId}:${position.code}`)!, start + (aircraft.id * 7 + Math.floor(random() * 50)) * 60_000, null);
     }
   }
-  // Stores spares: two of each part number.
-  for (const pn of DEMO_PART_NUMBERS) for (let i = 0; i < 2; i++) newUnit(pn.key, start - 10 * DAY_MS, random() < 0.3 ? 0 : 2 + random() * 3);
+  // Stores spares: a few of each part number, and a deep shelf of the brake actuators that come off most.
+  const SPARES: Record<string, number> = { brakeActuator: 40, brakeActuatorB: 25 };
+  for (const pn of DEMO_PART_NUMBERS) for (let i = 0; i < (SPARES[pn.key] ?? 4); i++) newUnit(pn.key, start - 10 * DAY_MS, random() < 0.3 ? 0 : 2 + random() * 3);
 
   function install(unit: Unit, aircraftId: number, positionId: number, atMs: number, swapId: string | null): number {
     const totals = host.get(aircraftId)!;
