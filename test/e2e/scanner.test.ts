@@ -54,9 +54,15 @@ function recordScripts(page: Page): Promise<string>[] {
   return bodies;
 }
 
-async function openLabelCheck(page: Page): Promise<void> {
+/** Signs in onto Label check and waits until its JavaScript has loaded, so the first click is handled. */
+async function gotoLabelCheck(page: Page): Promise<void> {
   await signInThroughPage(page, "technician", "/scan-check");
   await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Label check");
+  await page.waitForLoadState("networkidle");
+}
+
+async function openLabelCheck(page: Page): Promise<void> {
+  await gotoLabelCheck(page);
   await page.getByRole("button", { name: "Open the scanner" }).click();
   await page.getByRole("heading", { name: "Scan a part label" }).waitFor();
 }
@@ -92,8 +98,7 @@ describe("the label scanner on a phone", () => {
     await spyOnCamera(page);
     const scripts = recordScripts(page);
 
-    await signInThroughPage(page, "technician", "/scan-check");
-    await page.getByRole("button", { name: "Open the scanner" }).waitFor();
+    await gotoLabelCheck(page);
     const beforeOpening = scripts.length;
     const initialBodies = await Promise.all(scripts.slice(0, beforeOpening));
     expect(initialBodies.some((body) => body.includes(SCANNER_BUNDLE_MARK))).toBe(false);

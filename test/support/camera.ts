@@ -23,8 +23,7 @@ export interface LabelImageOptions {
   message: string;
   /**
    * Image pixels per module (narrow bar or matrix cell), at most; the largest that still fits the frame
-   * is used. bwip-js draws a linear module 1 px wide and a 2D module 2 px wide at scale 1, and takes
-   * whole scales only, so 2D symbols get even sizes. Defaults: 2 for Code 128 (a format 06 message is
+   * is used. bwip-js takes whole scales only, so 2D symbols get even sizes. Defaults: 2 for Code 128 (a format 06 message is
    * about 480 modules wide, 3 px would not fit in 1280); 4 for Data Matrix and QR, because a Data Matrix
    * at 2 px per cell did not decode from the fake camera here while 4 and 6 did.
    */
@@ -46,9 +45,11 @@ function pngSize(png: Buffer): { width: number; height: number } {
   return { width: png.readUInt32BE(16), height: png.readUInt32BE(20) };
 }
 
+// bwip-js draws a linear module 1 px and a 2D module 2 px wide at scale 1.
+const pixelsPerModuleAtScale1 = (symbology: LabelSymbology) => (symbology === "code128" ? 1 : 2);
+
 async function renderAtScale(options: LabelImageOptions, scale: number): Promise<LabelImage> {
   const linear = options.symbology === "code128";
-  const pixelsPerModuleAtScale1 = linear ? 1 : 2;
   const png = await bwipjs.toBuffer({
     bcid: options.symbology,
     // Literal RS/GS/EOT: bwip-js encodes them as Code 128 set A characters (a decoder returns them
@@ -57,18 +58,17 @@ async function renderAtScale(options: LabelImageOptions, scale: number): Promise
     scale,
     // Bar height in millimetres: tall bars survive a camera held at a slight tilt.
     ...(linear ? { height: 18 } : {}),
-    padding: QUIET_ZONE_MODULES * pixelsPerModuleAtScale1,
+    padding: QUIET_ZONE_MODULES * pixelsPerModuleAtScale1(options.symbology),
     backgroundcolor: "FFFFFF",
     includetext: false,
   });
-  return { png, ...pngSize(png), modulePixels: scale * pixelsPerModuleAtScale1 };
+  return { png, ...pngSize(png), modulePixels: scale * pixelsPerModuleAtScale1(options.symbology) };
 }
 
 /** A label PNG that fits the fake camera frame, at the largest module size up to `modulePixels`. */
 export async function renderLabelPng(options: LabelImageOptions): Promise<LabelImage> {
-  const pixelsPerModuleAtScale1 = options.symbology === "code128" ? 1 : 2;
   const modulePixels = options.modulePixels ?? (options.symbology === "code128" ? 2 : 4);
-  const maxScale = Math.max(1, Math.floor(modulePixels / pixelsPerModuleAtScale1));
+  const maxScale = Math.max(1, Math.floor(modulePixels / pixelsPerModuleAtScale1(options.symbology)));
   for (let scale = maxScale; scale >= 1; scale--) {
     const image = await renderAtScale(options, scale);
     if (image.width <= FRAME.width && image.height <= FRAME.height) return image;
