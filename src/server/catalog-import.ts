@@ -39,16 +39,22 @@ export interface ImportResult {
 export async function importPartNumbers(records: Array<Record<string, unknown>>): Promise<ImportResult> {
   const rejected: CsvRowError[] = [];
   const candidates: Candidate[] = [];
+  // Part numbers of refused rows, so a row that names one as its alternate can say where it went.
+  const refusedRowOf = new Map<string, number>();
   records.forEach((record, index) => {
     const row = typeof record.row === "number" && Number.isSafeInteger(record.row) && record.row > 0 ? record.row : index + 1;
     const result = validateCsvRecord(record);
-    if (result.ok) candidates.push({ row, input: result.value, key: keyOf(result.value.partNumber, result.value.cage) });
-    else rejected.push(...result.errors.map((error) => ({ row, ...error })));
+    if (result.ok) {
+      candidates.push({ row, input: result.value, key: keyOf(result.value.partNumber, result.value.cage) });
+    } else {
+      rejected.push(...result.errors.map((error) => ({ row, ...error })));
+      if (typeof record.part_number === "string") refusedRowOf.set(record.part_number.trim().toUpperCase(), row);
+    }
   });
 
   for (let attempt = 1; ; attempt++) {
     try {
-      const planned = await planAndWrite(candidates);
+      const planned = await planAndWrite(candidates, new Map(refusedRowOf));
       return { accepted: planned.accepted, rejected: sortErrors([...rejected, ...planned.rejected]) };
     } catch (error) {
       if (!isDuplicateKey(error) || attempt === 2) throw error;
@@ -56,11 +62,10 @@ export async function importPartNumbers(records: Array<Record<string, unknown>>)
   }
 }
 
-async function planAndWrite(all: Candidate[]): Promise<ImportResult> {
+async function planAndWrite(all: Candidate[], rejectedRowOf: Map<string, number>): Promise<ImportResult> {
   const names = new Set(all.flatMap((c) => [c.input.partNumber, ...(c.input.alternates ?? []).map((a) => a.partNumber)]));
   const catalog = await catalogEntries([...names]);
   const rejected: CsvRowError[] = [];
-  const rejectedRowOf = new Map<string, number>();
   const pending = new Map<string, Candidate>();
   const reject = (candidate: Candidate, field: string, message: string) => {
     rejected.push({ row: candidate.row, field, message });

@@ -180,3 +180,9 @@ export async function resolvePartRefs(refs: PartRef[], field: string, trx: Trx =
   if (Object.keys(fields).length) throw new AppError("invalid", Object.values(fields).join(" "), "invalid", fields);
   return resolved;
 }
+
+/** How many positions, across every aircraft type, list this part number as eligible. */
+export async function countEligiblePositions(partNumberId: number, trx: Trx = db()): Promise<number> {
+  const [{ count }] = await trx("position_eligibility").where({ part_number_id: partNumberId }).count({ count: "*" });
+  return Number(count);
+}
