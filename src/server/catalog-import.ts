@@ -2,6 +2,7 @@ import "server-only";
 import type { CreatePartNumberInput } from "@/lib/schemas/catalog";
 import { CSV_COLUMNS, validateCsvRecord, type CsvRowError } from "@/lib/schemas/catalog-csv";
 import { isDuplicateKey, PartInterchange, PartNumbers, type PartNumberRow } from "./catalog";
+import { partNumberColumns } from "./catalog-write";
 import { db } from "./db";
 
 interface Candidate {
@@ -163,20 +164,7 @@ async function catalogEntries(partNumbers: string[]): Promise<Map<string, Target
 
 async function writeRows(accepted: Candidate[], links: Link[], catalog: Map<string, Target>): Promise<void> {
   await db().transaction(async (trx) => {
-    await trx(PartNumbers).insert(
-      accepted.map(({ input }) => ({
-        part_number: input.partNumber,
-        cage: input.cage,
-        description: input.description,
-        ata_chapter: input.ataChapter,
-        serialised: input.serialised ?? true,
-        life_limit_minutes: input.lifeLimitHours ?? null,
-        life_limit_cycles: input.lifeLimitCycles ?? null,
-        life_limit_days: input.lifeLimitDays ?? null,
-        overhaul_interval_minutes: input.overhaulHours ?? null,
-        overhaul_interval_cycles: input.overhaulCycles ?? null,
-      })),
-    );
+    await trx(PartNumbers).insert(accepted.map(({ input }) => ({ serialised: true, ...partNumberColumns(input) })));
     if (links.length === 0) return;
     // Ids are read back rather than counted from the first insert id: Galera hands out interleaved ids.
     const ids = new Map([...catalog].map(([key, target]) => [key, target.id!]));

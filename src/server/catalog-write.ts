@@ -22,7 +22,8 @@ import {
 import { db } from "./db";
 import { AppError, invalidField, notFound } from "./errors";
 
-function limitColumns(input: UpdatePartNumberInput) {
+/** Columns for the fields given; absent fields are left out, so a PATCH touches only what it names. */
+export function partNumberColumns(input: UpdatePartNumberInput) {
   const columns: Partial<Omit<PartNumberRow, "id">> = {};
   if (input.partNumber !== undefined) columns.part_number = input.partNumber;
   if (input.cage !== undefined) columns.cage = input.cage;
@@ -46,7 +47,7 @@ export function duplicatePartNumber(partNumber: string, cage: string): AppError 
 export async function createPartNumber({ input }: { input: CreatePartNumberInput }): Promise<PartNumberView> {
   try {
     return await db().transaction(async (trx) => {
-      const [id] = await trx(PartNumbers).insert({ serialised: true, ...limitColumns(input) });
+      const [id] = await trx(PartNumbers).insert({ serialised: true, ...partNumberColumns(input) });
       if (input.alternates?.length) await replaceAlternates({ partNumberId: id, alternates: input.alternates, trx });
       return getPartNumberOrThrow(id, trx);
     });
@@ -77,7 +78,7 @@ export async function updatePartNumber({ id, input }: { id: number; input: Updat
           );
         }
       }
-      const columns = limitColumns(input);
+      const columns = partNumberColumns(input);
       if (Object.keys(columns).length) await trx(PartNumbers).where({ id }).update(columns);
       if (input.alternates) await replaceAlternates({ partNumberId: id, alternates: input.alternates, trx });
       return getPartNumberOrThrow(id, trx);

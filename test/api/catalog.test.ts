@@ -248,8 +248,10 @@ describe("POST /api/part-numbers/import", () => {
   });
 
   it("keeps the good rows, reports the bad ones by row and field, and writes nothing for them", async () => {
+    // An alternate already in the catalog: our own, so no seeded part number gains a link.
+    expect((await create(newPart("IMPBASE"))).status).toBe(201);
     const rows = [
-      row("IMPA", { row: 2, life_limit_hours: "1200:30", life_limit_cycles: "20,000", alternates: `${pn("IMPB")}:two-way;QF-3611-10:one-way` }),
+      row("IMPA", { row: 2, life_limit_hours: "1200:30", life_limit_cycles: "20,000", alternates: `${pn("IMPB")}:two-way;${pn("IMPBASE")}:one-way` }),
       row("IMPB", { row: 3, serialised: "yes", overhaul_hours: "850.25" }),
       row("IMPBADATA", { row: 4, ata_chapter: "36" }),
       { row: 5, part_number: "QF-3242-50", cage: "Q4B22", description: "Already there", ata_chapter: "32-42" },
@@ -279,15 +281,21 @@ describe("POST /api/part-numbers/import", () => {
     const a = await find(pn("IMPA"));
     expect(a).toMatchObject({ lifeLimitHours: "1200:30", lifeLimitCycles: 20000, description: "Imported IMPA" });
     expect(a.alternates.map((x: { partNumber: string; direction: string }) => [x.partNumber, x.direction])).toEqual([
-      ["QF-3611-10", "one-way"],
       [pn("IMPB"), "two-way"],
+      [pn("IMPBASE"), "one-way"],
     ]);
     expect(await find(pn("IMPB"))).toMatchObject({ overhaulHours: "850:15", serialised: true });
 
     const written = await testDb()("part_numbers").where("part_number", "like", `QT-${run}-IMP%`).pluck("part_number");
-    expect(written.sort()).toEqual([pn("IMPA"), pn("IMPB")]);
-    // The seeded bleed valve only gained a link; its own row is untouched.
-    expect(await find("QF-3611-10")).toMatchObject({ description: "Bleed pressure regulating valve", alternates: [] });
+    expect(written.sort()).toEqual([pn("IMPA"), pn("IMPB"), pn("IMPBASE")]);
+    expect((await find(pn("IMPBASE"))).replaces).toEqual([expect.objectContaining({ partNumber: pn("IMPA"), direction: "one-way" })]);
+    // Refused rows left no links behind either.
+    const links = await testDb()("part_interchange as i")
+      .join("part_numbers as p", "p.id", "i.part_number_id")
+      .where("p.part_number", "like", `QT-${run}-IMP%`)
+      .pluck("p.part_number");
+    expect(links.sort()).toEqual([pn("IMPA"), pn("IMPA")]);
+    expect(await find("QF-3242-50")).toMatchObject({ description: "Electric brake actuator" });
   });
 
   it("numbers rows by their place in the request when no row number is given", async () => {

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { http, signInAs, testDb } from "../support/api";
 
 // Positions are written only on an aircraft type this file creates (code QT-...), so the seeded
-// layouts of QL-72 and QL-40 keep their 124 and 126 positions for the other suites.
+// layouts of QL-72 and QL-40 keep their 126 and 124 positions for the other suites.
 const run = randomBytes(3).toString("hex").toUpperCase();
 const TYPE = `QT-${run}`;
 
@@ -42,8 +42,8 @@ describe("GET /api/layouts and /api/layouts/{typeCode}", () => {
     expect(response.status).toBe(200);
     expect(response.body.types).toEqual(
       expect.arrayContaining([
-        expect.objectContaining({ code: "QL-72", positionCount: 124 }),
-        expect.objectContaining({ code: "QL-40", positionCount: 126 }),
+        expect.objectContaining({ code: "QL-72", positionCount: 126 }),
+        expect.objectContaining({ code: "QL-40", positionCount: 124 }),
       ]),
     );
   });
@@ -51,8 +51,8 @@ describe("GET /api/layouts and /api/layouts/{typeCode}", () => {
   it("returns a type's positions with cautions and eligible part numbers", async () => {
     const response = await http().get("/api/layouts/QL-72").set("cookie", technician);
     expect(response.status).toBe(200);
-    expect(response.body.total).toBe(124);
-    expect(response.body.positions).toHaveLength(124);
+    expect(response.body.total).toBe(126);
+    expect(response.body.positions).toHaveLength(126);
     const actuator = response.body.positions.find((p: { code: string }) => p.code === "B1-EBA1");
     expect(actuator).toMatchObject({ parentCode: "B1", ataChapter: "32-42", zone: "MLG-L" });
     expect(actuator.eligible.map((e: { partNumber: string }) => e.partNumber)).toEqual(["QF-3242-50", "QF-3242-51"]);
@@ -62,7 +62,7 @@ describe("GET /api/layouts and /api/layouts/{typeCode}", () => {
 
   it("filters by zone and ATA chapter, keeping the type's total", async () => {
     const zone = await http().get("/api/layouts/QL-40?zone=TAIL").set("cookie", technician);
-    expect(zone.body.total).toBe(126);
+    expect(zone.body.total).toBe(124);
     expect(zone.body.positions.length).toBeGreaterThan(0);
     expect(zone.body.positions.every((p: { zone: string }) => p.zone === "TAIL")).toBe(true);
     const ata = await http().get("/api/layouts/QL-40?ata=32-42").set("cookie", technician);

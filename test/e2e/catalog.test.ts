@@ -123,13 +123,16 @@ describe("the admin keeps the catalog and a layout through the real pages", () =
     await page.getByLabel("Map x").fill("155.5");
     await expect.poll(() => dot.getAttribute("cx")).toBe("155.5");
     await page.getByLabel("Map y").fill("280");
-    await page.getByLabel("Label").fill("Nose wheel 1 (left)");
+    await page.getByLabel("Label", { exact: true }).fill("Nose wheel 1 (left)");
     await page.getByLabel("Cautions shown before work").fill("Install the nose gear ground-lock pin.\nChock the main wheels.");
     await page.getByLabel(/independent inspection is required/).check();
     await page.getByRole("button", { name: "Save position" }).click();
     await page.getByText("Position NW1 saved.").waitFor();
     await page.getByRole("complementary", { name: "Safety cautions" }).getByText("Chock the main wheels.").waitFor();
     await screenshot(page, "layout-position-saved");
+    // The form is reset after the action: the parent must still read as saved, or the next save would drop it.
+    expect(await page.getByLabel("Parent position").inputValue()).toBe("NLG-STRUT");
+    expect(await page.getByLabel("Map x").inputValue()).toBe("155.5");
 
     const type = await testDb()("aircraft_types").where({ code: TYPE }).first();
     const stored = await testDb()("positions").where({ aircraft_type_id: type.id, code: "NW1" }).first();

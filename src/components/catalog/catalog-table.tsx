@@ -58,13 +58,13 @@ export function CatalogTable({
           {partNumbers.map((p) => (
             <tr key={p.id} className="border-b border-[var(--rule)] hover:bg-thread-50 dark:hover:bg-thread-900">
               <td className="px-3 py-1.5">
-                <Link href={`/catalog/${p.id}`} className="num font-semibold text-[var(--accent)] underline">
+                <Link href={`/catalog/${p.id}`} className="num whitespace-nowrap font-semibold text-[var(--accent)] underline">
                   {p.partNumber}
                 </Link>
               </td>
               <td className="num px-3 py-1.5">{p.cage}</td>
               <td className="px-3 py-1.5">{p.description}</td>
-              <td className="num px-3 py-1.5">{p.ataChapter}</td>
+              <td className="num whitespace-nowrap px-3 py-1.5">{p.ataChapter}</td>
               <td className="px-3 py-1.5">{p.serialised ? <span><span aria-hidden="true">● </span>Yes</span> : <span><span aria-hidden="true">○ </span>No</span>}</td>
               <td className="num px-3 py-1.5">{limits(p.lifeLimitHours, p.lifeLimitCycles, p.lifeLimitDays)}</td>
               <td className="num px-3 py-1.5">{limits(p.overhaulHours, p.overhaulCycles)}</td>
@@ -74,7 +74,7 @@ export function CatalogTable({
                 ) : (
                   <ul>
                     {p.alternates.map((a) => (
-                      <li key={a.id} className="num">
+                      <li key={a.id} className="num whitespace-nowrap">
                         <span aria-hidden="true">{a.direction === "two-way" ? "⇄ " : "→ "}</span>
                         {a.partNumber} <span className="sr-only">({a.direction})</span>
                       </li>

@@ -184,7 +184,7 @@ export function CsvImport() {
           {importRows.isError ? <FormMessage message={importRows.error.message} /> : null}
           {done ? (
             <FormMessage
-              ok={done.rejected.length + checked.errors.length === 0}
+              ok={done.accepted > 0 || done.rejected.length + checked.errors.length === 0}
               message={`Imported ${done.accepted} of ${checked.rowsRead} rows.${done.rejected.length + checked.errors.length ? " The rows listed below were not imported: fix them in the file and import those rows again." : ""}`}
             />
           ) : null}

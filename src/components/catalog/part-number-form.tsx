@@ -27,7 +27,7 @@ export function PartNumberForm({ action, current, submitLabel }: { action: Actio
   const field = (name: string) => ({ name, defaultValue: initial[name], error: errors[name] });
 
   return (
-    <form action={formAction} className="space-y-5" noValidate aria-label={submitLabel}>
+    <form action={formAction} className="space-y-5" noValidate>
       <FormMessage message={state.message} ok={state.ok} />
       <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <legend className="mb-2 text-lg font-semibold">Identity</legend>

@@ -33,6 +33,7 @@ export function PositionForm({
   const initial: Record<string, string> = state.values ?? {
     code: current?.code ?? "",
     label: current?.label ?? "",
+    parentCode: current?.parentCode ?? "",
     ataChapter: current?.ataChapter ?? "",
     zone: current?.zone ?? "",
     cautions: current?.cautions.join("\n") ?? "",
@@ -47,7 +48,7 @@ export function PositionForm({
   const eligibleError = errorFor(errors, "eligible");
 
   return (
-    <form action={formAction} className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]" noValidate aria-label={submitLabel}>
+    <form action={formAction} className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]" noValidate>
       <div className="space-y-4">
         <FormMessage message={state.message} ok={state.ok} />
         <div className="grid gap-4 sm:grid-cols-2">
@@ -76,10 +77,12 @@ export function PositionForm({
             <label htmlFor="parentCode" className="field-label">
               Parent position
             </label>
+            {/* Uncontrolled, so the reset React does after an action restores the saved parent, not the first option. */}
             <select
+              key={initial.parentCode}
               id="parentCode"
               name="parentCode"
-              value={parentCode}
+              defaultValue={initial.parentCode}
               onChange={(event) => setParentCode(event.target.value)}
               className="field-input"
               aria-invalid={errors.parentCode ? true : undefined}
@@ -158,7 +161,7 @@ export function PositionForm({
           <ul className="flex flex-wrap gap-2">
             {eligible.map((p) => (
               <li key={p.id} className="flex items-center gap-2 rounded-md border-2 border-[var(--ink-soft)] py-1 pl-3 pr-1">
-                <span className="num font-semibold">{p.partNumber}</span>
+                <span className="num whitespace-nowrap font-semibold">{p.partNumber}</span>
                 <span className="text-sm">{p.description}</span>
                 <button
                   type="button"

@@ -24,13 +24,13 @@ export function PositionsTable({ typeCode, positions }: { typeCode: string; posi
           {positions.map((p) => (
             <tr key={p.code} className="border-b border-[var(--rule)] hover:bg-thread-50 dark:hover:bg-thread-900">
               <td className="px-3 py-1.5">
-                <Link href={`/layouts/${encodeURIComponent(typeCode)}/${encodeURIComponent(p.code)}`} className="num font-semibold text-[var(--accent)] underline">
+                <Link href={`/layouts/${encodeURIComponent(typeCode)}/${encodeURIComponent(p.code)}`} className="num whitespace-nowrap font-semibold text-[var(--accent)] underline">
                   {p.code}
                 </Link>
               </td>
               <td className="px-3 py-1.5">{p.label}</td>
-              <td className="num px-3 py-1.5">{p.parentCode ?? "—"}</td>
-              <td className="num px-3 py-1.5">{p.ataChapter}</td>
+              <td className="num whitespace-nowrap px-3 py-1.5">{p.parentCode ?? "—"}</td>
+              <td className="num whitespace-nowrap px-3 py-1.5">{p.ataChapter}</td>
               <td className="px-3 py-1.5">{p.zone ?? "—"}</td>
               <td className="num px-3 py-1.5 text-right">{p.x}</td>
               <td className="num px-3 py-1.5 text-right">{p.y}</td>
@@ -46,7 +46,19 @@ export function PositionsTable({ typeCode, positions }: { typeCode: string; posi
                 )}
               </td>
               <td className="num px-3 py-1.5 text-right">{p.cautions.length}</td>
-              <td className="num px-3 py-1.5">{p.eligible.length ? p.eligible.map((e) => e.partNumber).join(", ") : "none"}</td>
+              <td className="num px-3 py-1.5">
+                {p.eligible.length ? (
+                  <ul>
+                    {p.eligible.map((e) => (
+                      <li key={e.id} className="whitespace-nowrap">
+                        {e.partNumber}
+                      </li>
+                    ))}
+                  </ul>
+                ) : (
+                  "none"
+                )}
+              </td>
             </tr>
           ))}
         </tbody>
