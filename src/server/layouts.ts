@@ -105,7 +105,14 @@ function toView(row: PositionRow, eligible: EligibleView[]): PositionView {
 }
 
 export async function getLayout(typeCode: string, query: LayoutQuery = {}, trx: Trx = db()): Promise<Layout> {
-  const type = await getTypeOrThrow(typeCode, trx);
+  const layout = await findLayout(typeCode, query, trx);
+  if (!layout) throw notFound(`Aircraft type ${typeCode}`);
+  return layout;
+}
+
+export async function findLayout(typeCode: string, query: LayoutQuery = {}, trx: Trx = db()): Promise<Layout | null> {
+  const type: AircraftTypeRow | undefined = await trx(AircraftTypes).where({ code: typeCode }).first();
+  if (!type) return null;
   const rows: PositionRow[] = await trx(Positions).where({ aircraft_type_id: type.id }).orderBy("sort_order").orderBy("code");
   const count = <K extends string>(keys: K[]) =>
     [...keys.reduce((map, key) => map.set(key, (map.get(key) ?? 0) + 1), new Map<K, number>())].sort(([a], [b]) => a.localeCompare(b));

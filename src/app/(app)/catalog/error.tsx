@@ -1,21 +1,7 @@
 "use client";
 
-export default function CatalogError({ error, reset }: { error: Error & { digest?: string }; reset: () => void }) {
-  return (
-    <div role="alert" className="panel max-w-xl p-4">
-      <h1 className="text-xl font-bold">The catalog could not be shown</h1>
-      <p className="mt-2">
-        Nothing you entered was saved unless you saw it confirmed. Try again; if it keeps happening, tell your administrator
-        {error.digest ? (
-          <>
-            {" "}and quote reference <span className="num">{error.digest}</span>
-          </>
-        ) : null}
-        .
-      </p>
-      <button type="button" onClick={reset} className="btn btn-primary mt-4">
-        Try again
-      </button>
-    </div>
-  );
+import { SegmentError } from "@/components/catalog/segment-error";
+
+export default function CatalogError(props: { error: Error & { digest?: string }; reset: () => void }) {
+  return <SegmentError title="The catalog could not be shown" {...props} />;
 }

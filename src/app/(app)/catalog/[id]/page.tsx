@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { FormMessage } from "@/components/catalog/form-field";
 import { AlternatesEditor } from "@/components/catalog/alternates-editor";
 import { PartNumberForm } from "@/components/catalog/part-number-form";
 import { countUnits, countEligiblePositions, findPartNumber } from "@/server/catalog";
@@ -43,9 +44,7 @@ export default async function PartNumberPage({
         </p>
       </div>
       {created ? (
-        <p role="status" className="rounded-md border-2 border-green-800 bg-green-50 p-3 font-semibold text-green-900 dark:bg-green-950 dark:text-green-100">
-          <span aria-hidden="true">✔ </span>Part number added. Add its alternates below.
-        </p>
+        <FormMessage ok message="Part number added. Add its alternates below." />
       ) : null}
       <section aria-labelledby="details-heading" className="panel p-4">
         <h2 id="details-heading" className="mb-3 text-xl font-semibold">

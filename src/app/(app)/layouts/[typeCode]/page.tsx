@@ -4,8 +4,7 @@ import { notFound } from "next/navigation";
 import { PositionPreview } from "@/components/layouts/position-preview";
 import { PositionsTable } from "@/components/layouts/positions-table";
 import { LayoutQuerySchema } from "@/lib/schemas/layouts";
-import { AppError } from "@/server/errors";
-import { getLayout } from "@/server/layouts";
+import { findLayout, getLayout } from "@/server/layouts";
 import { requireUserFor } from "@/server/page-guard";
 
 export const metadata: Metadata = { title: "Layout" };
@@ -23,10 +22,8 @@ export default async function LayoutPage({
   const parsed = LayoutQuerySchema.safeParse({ zone: raw.zone || undefined, ata: raw.ata || undefined });
   const query = parsed.success ? parsed.data : {};
   const filtered = Boolean(query.zone || query.ata);
-  const layout = await getLayout(typeCode, query).catch((error) => {
-    if (error instanceof AppError && error.kind === "not_found") notFound();
-    throw error;
-  });
+  const layout = await findLayout(typeCode, query);
+  if (!layout) notFound();
   const everything = filtered ? await getLayout(typeCode) : layout;
 
   return (

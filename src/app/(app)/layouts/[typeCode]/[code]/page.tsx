@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { FormMessage } from "@/components/catalog/form-field";
 import { CautionList } from "@/components/layouts/caution-list";
 import { PositionForm } from "@/components/layouts/position-form";
-import { AppError } from "@/server/errors";
-import { getLayout } from "@/server/layouts";
+import { findLayout } from "@/server/layouts";
 import { requireUserFor } from "@/server/page-guard";
 import { updatePositionAction } from "../../actions";
 
@@ -20,10 +20,8 @@ export default async function PositionPage({
   const { typeCode, code } = await params;
   await requireUserFor("layouts", `/layouts/${typeCode}/${code}`);
   const { created } = await searchParams;
-  const layout = await getLayout(typeCode).catch((error) => {
-    if (error instanceof AppError && error.kind === "not_found") notFound();
-    throw error;
-  });
+  const layout = await findLayout(typeCode);
+  if (!layout) notFound();
   const position = layout.positions.find((p) => p.code === code.toUpperCase());
   if (!position) notFound();
   const type = layout.type.code;
@@ -53,9 +51,7 @@ export default async function PositionPage({
         </p>
       </div>
       {created ? (
-        <p role="status" className="rounded-md border-2 border-green-800 bg-green-50 p-3 font-semibold text-green-900 dark:bg-green-950 dark:text-green-100">
-          <span aria-hidden="true">✔ </span>Position added.
-        </p>
+        <FormMessage ok message="Position added." />
       ) : null}
       <CautionList cautions={position.cautions} independentInspection={position.requiresIndependentInspection} />
       <div className="panel p-4">

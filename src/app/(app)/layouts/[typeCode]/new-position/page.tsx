@@ -2,8 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { PositionForm } from "@/components/layouts/position-form";
-import { AppError } from "@/server/errors";
-import { getLayout } from "@/server/layouts";
+import { findLayout } from "@/server/layouts";
 import { requireUserFor } from "@/server/page-guard";
 import { createPositionAction } from "../../actions";
 
@@ -12,10 +11,8 @@ export const metadata: Metadata = { title: "New position" };
 export default async function NewPositionPage({ params }: { params: Promise<{ typeCode: string }> }) {
   const { typeCode } = await params;
   await requireUserFor("layouts", `/layouts/${typeCode}/new-position`);
-  const layout = await getLayout(typeCode).catch((error) => {
-    if (error instanceof AppError && error.kind === "not_found") notFound();
-    throw error;
-  });
+  const layout = await findLayout(typeCode);
+  if (!layout) notFound();
   const code = layout.type.code;
   return (
     <div className="space-y-4">
