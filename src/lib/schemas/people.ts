@@ -117,3 +117,9 @@ export interface UserView {
   createdAt: string;
   invitation: { sentAt: string; expiresAt: string; expired: boolean } | null;
 }
+
+/** What the set-password forms (invitation, reset) show after a submit. */
+export interface SetPasswordState {
+  message?: string;
+  errors?: Partial<Record<"password" | "confirm", string>>;
+}
