@@ -47,14 +47,14 @@ describe("inviting a technician through the People page", () => {
     await expect.poll(() => invitee.getByRole("heading", { level: 1 }).textContent()).toBe("Choose your password");
     await screenshot(invitee, "people-04-invitation-page");
 
-    await invitee.getByLabel("New password").fill("too-short");
+    await invitee.getByLabel("New password", { exact: true }).fill("too-short");
     await invitee.getByLabel("Repeat the new password").fill("too-short");
     await invitee.getByRole("button", { name: "Set password and sign in" }).click();
     await expect.poll(() => invitee.locator("#password-error").textContent()).toMatch(/at least 12 characters/);
-    expect(await invitee.getByLabel("New password").getAttribute("aria-describedby")).toContain("password-error");
+    expect(await invitee.getByLabel("New password", { exact: true }).getAttribute("aria-describedby")).toContain("password-error");
     await screenshot(invitee, "people-05-password-too-short");
 
-    await invitee.getByLabel("New password").fill(password);
+    await invitee.getByLabel("New password", { exact: true }).fill(password);
     await invitee.getByLabel("Repeat the new password").fill(password);
     await invitee.getByRole("button", { name: "Set password and sign in" }).click();
     await invitee.waitForURL((target) => target.pathname === "/");
@@ -89,7 +89,9 @@ describe("inviting a technician through the People page", () => {
   });
 
   it("offers 'Forgot password?' on the sign-in page and answers without telling whether the address exists", async () => {
-    const page = await inviteeBrowser.newPage();
+    // A browser of its own: the invitee's is signed in, and /sign-in would send it home.
+    const visitor = await launchBrowser({ viewport: PHONE, isMobile: true });
+    const page = await visitor.newPage();
     await page.goto("/sign-in");
     await page.getByRole("link", { name: "Forgot password?" }).click();
     await page.waitForURL(/\/reset-password$/);
@@ -97,6 +99,6 @@ describe("inviting a technician through the People page", () => {
     await page.getByRole("button", { name: "Send me a link" }).click();
     await expect.poll(() => page.getByRole("status").textContent()).toMatch(/If an account uses that address/);
     await screenshot(page, "people-11-forgot-password-sent");
-    await page.close();
+    await visitor.close();
   });
 });
