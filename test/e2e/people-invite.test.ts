@@ -81,9 +81,20 @@ describe("inviting a technician through the People page", () => {
     const row = admin.getByRole("row", { name: /Seraphine Quellwood/ });
     await expect.poll(() => row.textContent()).toMatch(/Active/);
     await screenshot(admin, "people-09-list-active");
+
+    // On the person's page the admin records a licence renewal date that falls within 30 days.
+    await row.getByRole("link", { name: "Seraphine Quellwood" }).click();
+    await admin.waitForURL(/\/people\/usr-/);
+    const soon = new Date(Date.now() + 10 * 86_400_000).toISOString().slice(0, 10);
+    await admin.getByLabel("Valid until").fill(soon);
+    await admin.getByRole("button", { name: "Save details" }).click();
+    await expect.poll(() => admin.getByText("Details saved.").isVisible()).toBe(true);
+    await expect.poll(() => admin.locator("dl").textContent()).toMatch(/Expires in (9|10) days/);
+    await screenshot(admin, "people-10-person-licence-expiring");
+
     await admin.goto("/people/audit");
     await expect.poll(() => admin.locator("tbody").textContent()).toMatch(/Invitation accepted/);
-    await screenshot(admin, "people-10-audit");
+    await screenshot(admin, "people-11-audit");
     await admin.close();
     await invitee.close();
   });
@@ -98,7 +109,7 @@ describe("inviting a technician through the People page", () => {
     await page.getByLabel("E-mail address").fill(uniqueEmail("nobody-here"));
     await page.getByRole("button", { name: "Send me a link" }).click();
     await expect.poll(() => page.getByRole("status").textContent()).toMatch(/If an account uses that address/);
-    await screenshot(page, "people-11-forgot-password-sent");
+    await screenshot(page, "people-12-forgot-password-sent");
     await visitor.close();
   });
 });

@@ -13,8 +13,9 @@ const roleWord = (value: unknown) => ROLE_LABELS[value as Role] ?? String(value)
 const shown = (value: unknown) => (value === null || value === undefined || value === "" ? "none" : String(value));
 
 /** One line saying what an event changed, from its details. */
-export function describeEvent(event: AccountEventView): string {
+export function describeEvent(event: AccountEventView, timeZone: string): string {
   const d = event.details ?? {};
+  const until = (value: unknown) => (typeof value === "string" ? formatInstant(value, timeZone) : shown(value));
   switch (event.kind) {
     case "role_changed":
       return `${roleWord(d.from)} → ${roleWord(d.to)}`;
@@ -26,9 +27,9 @@ export function describeEvent(event: AccountEventView): string {
         })
         .join("; ");
     case "invitation_sent":
-      return `as ${roleWord(d.role)}${d.licenceNumber ? `, licence ${d.licenceNumber}` : ""}; link valid until ${shown(d.expiresAt)}`;
+      return `as ${roleWord(d.role)}${d.licenceNumber ? `, licence ${d.licenceNumber}` : ""}; link valid until ${until(d.expiresAt)}`;
     case "invitation_resent":
-      return `earlier link withdrawn; new link valid until ${shown(d.expiresAt)}`;
+      return `earlier link withdrawn; new link valid until ${until(d.expiresAt)}`;
     case "deactivated":
       return `${shown(d.sessionsEnded)} session(s) ended`;
     case "reactivated":
@@ -69,7 +70,7 @@ export function AccountEventTable({ events, timeZone, caption }: { events: Accou
               <td className="p-2 break-all">{person(event.subject) ?? event.subjectEmail ?? "—"}</td>
               <td className="p-2 break-all">{person(event.actor) ?? "No one signed in"}</td>
               <td className="num p-2 text-sm">{event.ip ?? "—"}</td>
-              <td className="p-2 text-sm">{describeEvent(event)}</td>
+              <td className="p-2 text-sm">{describeEvent(event, timeZone)}</td>
             </tr>
           ))}
           {events.length === 0 ? (
