@@ -15,7 +15,10 @@ export function linkRefusal(purpose: TokenPurpose, state: Exclude<TokenState, "u
     case "used":
       return {
         title: "This link has already been used",
-        message: `Each ${noun} works once, and this one has been used. ${purpose === "invitation" ? "If you set your password, sign in with it." : "If you set a new password, sign in with it."} ${again}`,
+        message:
+          purpose === "invitation"
+            ? `Each ${noun} works once, and this one has been used. Sign in with the password you chose; if you have forgotten it, use "Forgot password?" on the sign-in page.`
+            : `Each ${noun} works once, and this one has been used. Sign in with your new password. ${again}`,
       };
     case "expired":
       return { title: "This link has expired", message: `This ${noun} is no longer valid. ${again}` };
