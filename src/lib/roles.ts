@@ -24,6 +24,7 @@ export type Area =
   | "trace"
   | "ledger"
   | "people"
+  | "account-audit"
   | "catalog"
   | "layouts";
 
@@ -41,6 +42,7 @@ export const AREA_ROLES: Record<Area, readonly Role[]> = {
   trace: ["auditor", "reliability", "admin"],
   ledger: ["auditor", "admin"],
   people: ["admin"],
+  "account-audit": ["auditor", "admin"],
   catalog: ["admin"],
   layouts: ["admin"],
 };
@@ -68,6 +70,7 @@ export const NAV_ITEMS: NavItem[] = [
   { area: "catalog", href: "/catalog", label: "Catalog" },
   { area: "layouts", href: "/layouts", label: "Layouts" },
   { area: "people", href: "/people", label: "People" },
+  { area: "account-audit", href: "/people/audit", label: "Account audit" },
 ];
 
 export function navFor(role: Role): NavItem[] {

@@ -3,6 +3,7 @@ import { db } from "./db";
 import { lucia } from "./auth";
 import { AppError } from "./errors";
 import { burnVerifyTime, verifyPassword } from "./passwords";
+import { noteFailedSignIn } from "./sign-in-bursts";
 
 // Failed attempts allowed per address and per client within the window before answers become 429.
 export const SIGN_IN_LIMITS = { windowMinutes: 15, perEmail: 5, perIp: 20 } as const;
@@ -41,6 +42,9 @@ export async function signIn(input: { email: string; password: string; ip: strin
   const user = await db()("users").where({ email }).first();
   const passwordOk = user?.password_hash ? await verifyPassword(user.password_hash, input.password) : (await burnVerifyTime(input.password), false);
   await db()("sign_in_attempts").insert({ email, ip: input.ip, succeeded: passwordOk, attempted_at: now });
+  if (!passwordOk) {
+    await noteFailedSignIn({ email, ip: input.ip, userId: user?.id ?? null, failuresBefore: failures, limits: SIGN_IN_LIMITS, now });
+  }
   if (!user || !passwordOk) {
     throw new AppError("unauthenticated", "The e-mail address or password is not right.", "bad_credentials", {
       password: "The e-mail address or password is not right.",

@@ -9,7 +9,10 @@ import type { NavItem } from "@/lib/roles";
 export function MainNav({ items }: { items: NavItem[] }) {
   const pathname = usePathname();
   const [open, setOpen] = useState(false);
-  const isCurrent = (href: string) => pathname === href || pathname.startsWith(href + "/");
+  const matches = (href: string) => pathname === href || pathname.startsWith(href + "/");
+  // With nested areas (/people and /people/audit) only the most specific match is the current page.
+  const current = items.filter((item) => matches(item.href)).sort((a, b) => b.href.length - a.href.length)[0]?.href;
+  const isCurrent = (href: string) => href === current;
 
   const links = items.map((item) => (
     <li key={item.href}>

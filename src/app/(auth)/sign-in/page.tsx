@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { redirect } from "next/navigation";
 import { LogoMark } from "@/components/shell/logo";
 import { validateRequest } from "@/server/auth";
@@ -20,6 +21,11 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         <h1 className="mb-1 text-xl font-bold">Sign in</h1>
         <p className="mb-5 text-[var(--ink-soft)]">Component changes and serial traceability for line maintenance.</p>
         <SignInForm next={next ?? "/"} />
+        <p className="mt-4">
+          <Link href="/reset-password" className="inline-flex min-h-touch items-center font-semibold text-[var(--accent)] underline">
+            Forgot password?
+          </Link>
+        </p>
       </div>
     </main>
   );
