@@ -7,6 +7,7 @@ import type { SwapCheckInput, SwapInput } from "@/lib/schemas/swaps";
 import { db } from "./db";
 import { AppError } from "./errors";
 import { appendLedgerEntries, type AppendedEntry } from "./ledger";
+import { assertLicenceValid } from "./licences";
 import { kickOutbox, queueMail } from "./mail";
 import type { SwapCheck } from "@/lib/swap-types";
 import { firstFailure, planSwap } from "./swap-checks";
@@ -40,14 +41,6 @@ export function requestDigest(raw: unknown): string {
   return createHash("sha256").update(JSON.stringify(canonical(raw))).digest("hex");
 }
 
-function licenceRefusal(user: User, now: Date): AppError | null {
-  if (!user.licenceExpiresOn) return null;
-  if (user.licenceExpiresOn < now.toISOString().slice(0, 10)) {
-    return new AppError("conflict", `Your licence/authorisation ${user.licenceNumber ?? ""} expired on ${user.licenceExpiresOn}; you cannot sign maintenance records until it is renewed.`, "licence_expired");
-  }
-  return null;
-}
-
 async function storedAnswer(trx: Knex | Knex.Transaction, key: string, digest: string, lock: boolean): Promise<SwapResult | null> {
   const query = trx("swaps").where({ idempotency_key: key }).first("request_hash", "response");
   const row = lock ? await query.forShare() : await query;
@@ -72,8 +65,7 @@ export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; ide
   const digest = requestDigest(input.rawBody);
   const earlier = await storedAnswer(db(), input.idempotencyKey, digest, false);
   if (earlier) return earlier;
-  const licence = licenceRefusal(input.actor, now);
-  if (licence) throw licence;
+  assertLicenceValid(input.actor, now);
   if (input.swap.performedAt.getTime() > now.getTime() + 5 * 60_000) {
     throw new AppError("invalid", "The swap cannot be dated in the future.", "invalid", { performedAt: "is in the future" });
   }
@@ -264,8 +256,7 @@ export async function checkSwap(swap: SwapCheckInput, now = new Date()): Promise
 /** An inspector's countersignature of a swap at a position that requires an independent inspection. */
 export async function countersignSwap(input: { swapId: string; inspector: User; now?: Date }) {
   const now = input.now ?? new Date();
-  const licence = licenceRefusal(input.inspector, now);
-  if (licence) throw licence;
+  assertLicenceValid(input.inspector, now);
   return db().transaction(async (trx) => {
     const row = await trx("swaps as s").join("positions as p", "p.id", "s.position_id").where("s.id", input.swapId).forUpdate().first("s.*", "p.requires_independent_inspection");
     if (!row) throw new AppError("not_found", `Swap ${input.swapId} was not found.`);

@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { http, signInAs, testDb } from "../support/api";
 import { fittedProjection, fittedRebuiltFromLedger, verifyLedger } from "../support/ledger";
-import { waitForMail } from "../support/mail";
+import { waitForMail } from "../support/mail-inbox";
 import { fittedAt, latestTotals, postSwap, spares, swapBody } from "../support/swaps";
 
 const ACTUATORS = ["QF-3242-50", "QF-3242-51"];

@@ -31,3 +31,20 @@ export function linkIn(mail: InboxMail, path: string): { url: string; token: str
   if (!match) throw new Error(`no ${path} link in the mail "${mail.subject}":\n${mail.text}`);
   return { url: match[1], token: match[2] };
 }
+
+export async function inbox(): Promise<InboxMail[]> {
+  const response = await fetch(`${testEnv().MAIL_INBOX_URL}/api/email`);
+  if (!response.ok) throw new Error(`the mail inbox answered ${response.status}`);
+  return (await response.json()) as InboxMail[];
+}
+
+/** Waits (bounded) for a mail that matches; the outbox sends just after commit, so it may lag a little. */
+export async function waitForMail(match: (mail: InboxMail) => boolean, timeoutMs = 20_000): Promise<InboxMail> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const found = (await inbox()).find(match);
+    if (found) return found;
+    if (Date.now() > deadline) throw new Error("the expected mail did not arrive");
+    await new Promise((resolve) => setTimeout(resolve, 250));
+  }
+}
