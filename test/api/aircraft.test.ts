@@ -13,6 +13,8 @@ const toMinutes = (hm: string) => {
   return h * 60 + m;
 };
 const toHm = (minutes: number) => `${Math.floor(minutes / 60)}:${String(minutes % 60).padStart(2, "0")}`;
+/** An instant just after the aircraft's newest snapshot (other suites may have added some). */
+const afterSnapshot = (asOf: string, minutes: number) => new Date(Date.parse(asOf) + minutes * 60_000).toISOString();
 
 describe("GET /api/aircraft", () => {
   it("lists the fleet with H:MM hours and integer cycles", async () => {
@@ -73,9 +75,9 @@ describe("POST /api/aircraft/{registration}/utilization", () => {
     const created = await http()
       .post("/api/aircraft/Q-FRAD/utilization")
       .set("cookie", technician)
-      .send({ asOf: "2026-12-01T12:00:00Z", hours: toHm(minutes + 95), cycles: cycles + 1 });
+      .send({ asOf: afterSnapshot(before.body.aircraft.asOf, 1), hours: toHm(minutes + 95), cycles: cycles + 1 });
     expect(created.status).toBe(201);
-    expect(created.body.snapshot).toEqual({ asOf: "2026-12-01T12:00:00.000Z", hours: toHm(minutes + 95), cycles: cycles + 1 });
+    expect(created.body.snapshot).toEqual({ asOf: afterSnapshot(before.body.aircraft.asOf, 1), hours: toHm(minutes + 95), cycles: cycles + 1 });
 
     const after = await http().get("/api/aircraft/Q-FRAD").set("cookie", technician);
     expect(after.body.aircraft.hours).toBe(toHm(minutes + 95));
@@ -83,7 +85,7 @@ describe("POST /api/aircraft/{registration}/utilization", () => {
     const lower = await http()
       .post("/api/aircraft/Q-FRAD/utilization")
       .set("cookie", technician)
-      .send({ asOf: "2026-12-01T18:00:00Z", hours: toHm(minutes + 10), cycles: cycles + 1 });
+      .send({ asOf: afterSnapshot(before.body.aircraft.asOf, 2), hours: toHm(minutes + 10), cycles: cycles + 1 });
     expect(lower.status).toBe(409);
     expect(lower.body.error.code).toBe("time_regression");
     expect(lower.body.error.message).toContain(toHm(minutes + 95));
@@ -96,9 +98,18 @@ describe("POST /api/aircraft/{registration}/utilization", () => {
     const response = await http()
       .post("/api/aircraft/Q-FRBD/utilization")
       .set("cookie", technician)
-      .send({ asOf: "2026-12-01T09:00:00+02:00", hours: Number(decimal.toFixed(4)), cycles: before.body.aircraft.cycles + 2 });
+      .send({ asOf: afterSnapshot(before.body.aircraft.asOf, 1), hours: Number(decimal.toFixed(4)), cycles: before.body.aircraft.cycles + 2 });
     expect(response.status).toBe(201);
     expect(response.body.snapshot.hours).toBe(toHm(minutes + 90));
+  });
+
+  it("refuses a snapshot dated in the future (422 naming asOf)", async () => {
+    const response = await http()
+      .post("/api/aircraft/Q-FRAB/utilization")
+      .set("cookie", technician)
+      .send({ asOf: new Date(Date.now() + 86_400_000).toISOString(), hours: "99999:00", cycles: 99999 });
+    expect(response.status).toBe(422);
+    expect(response.body.error.fields).toHaveProperty("asOf");
   });
 
   it("refuses bad fields with 422 naming each", async () => {
@@ -126,9 +137,9 @@ describe("POST /api/aircraft/{registration}/utilization", () => {
       .set("cookie", technician)
       .send({
         rows: [
-          { asOf: "2026-12-02T23:59:00Z", hours: toHm(minutes + 800), cycles: cycles + 16 },
-          { asOf: "2026-12-01T23:59:00Z", hours: toHm(minutes + 400), cycles: cycles + 8 },
-          { asOf: "2026-12-03T23:59:00Z", hours: toHm(minutes + 100), cycles: cycles + 20 }, // lower than the day before
+          { asOf: afterSnapshot(before.body.aircraft.asOf, 120), hours: toHm(minutes + 800), cycles: cycles + 16 },
+          { asOf: afterSnapshot(before.body.aircraft.asOf, 60), hours: toHm(minutes + 400), cycles: cycles + 8 },
+          { asOf: afterSnapshot(before.body.aircraft.asOf, 180), hours: toHm(minutes + 100), cycles: cycles + 20 }, // lower than the hour before
           { asOf: "not a date", hours: "1:00", cycles: 1 },
         ],
       });

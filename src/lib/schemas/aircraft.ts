@@ -1,8 +1,11 @@
 import { z } from "zod";
 import { cyclesField, flightTimeField, instantField } from "./common";
 
+// A few minutes of clock difference between a tablet and the server are tolerated.
+const CLOCK_SLACK_MS = 5 * 60_000;
+
 export const UtilizationSchema = z.object({
-  asOf: instantField,
+  asOf: instantField.refine((date) => date.getTime() <= Date.now() + CLOCK_SLACK_MS, { error: "A snapshot cannot be dated in the future." }),
   hours: flightTimeField,
   cycles: cyclesField,
 });
