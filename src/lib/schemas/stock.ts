@@ -148,3 +148,16 @@ export const StockQuerySchema = z.object({
 export type StockQuery = z.output<typeof StockQuerySchema>;
 
 export { PART_STATUSES };
+
+/**
+ * The movements the stock page offers for a unit: the same rules the server enforces (role, status,
+ * an issued unit only comes back), so the page never offers what would be refused.
+ */
+export function allowedMovements(unit: { status: PartStatus; issued: boolean; lastKind: string | null }, role: Role): MovementKind[] {
+  return MOVEMENT_KINDS.filter((kind) => {
+    if (!MOVEMENT_ROLES[kind].includes(role) || !MOVEMENT_FROM[kind].includes(unit.status)) return false;
+    if (unit.issued) return kind === "returned";
+    if (kind === "returned") return unit.status === "unserviceable" && unit.lastKind === "removed";
+    return true;
+  });
+}
