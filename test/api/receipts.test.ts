@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { MAX_CERTIFICATE_BYTES } from "../../src/lib/schemas/receiving";
-import { http, signInAs, testDb } from "../support/api";
+import { http, signInAs, testDb, testEnv } from "../support/api";
 import {
   binaryParser,
   certificateObjectKeys,
@@ -192,6 +192,13 @@ describe("POST /api/receipts", () => {
     expect(entries[1].reason).toMatch(/Receiving discrepancy: Block 10 reads EA0999/);
     const mail = await testDb()("mail_outbox").where("subject", "like", `%${fields.serialNumber}%`);
     expect(mail.map((m) => m.to_address)).toEqual(["auditor@demo.threadline.test"]);
+    // The outbox hands it to SMTP after the commit; the mail fake's REST inbox (maildev 3: /api/email) shows it.
+    await expect
+      .poll(async () => {
+        const inbox = (await (await fetch(`${testEnv().MAIL_INBOX_URL}/api/email`)).json()) as Array<{ subject: string; to: Array<{ address: string }> }>;
+        return inbox.some((m) => m.subject.includes(fields.serialNumber) && m.to.some((t) => t.address === "auditor@demo.threadline.test"));
+      }, { timeout: 30_000 })
+      .toBe(true);
   });
 
   it("refuses roles other than stores and admin with 403, and a visitor with 401", async () => {

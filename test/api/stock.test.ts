@@ -2,7 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { computeEntryHash } from "../../src/domain/ledger-hash";
 import { rowToEntry } from "../../src/server/ledger";
 import { http, signInAs, testDb } from "../support/api";
-import { certificateObjectKeys, pdfUpload, postMultipartMovement, postReceipt, receiptFields, uniqueSuffix } from "./receipts-fixtures";
+import { parseLabel } from "../../src/domain/labels";
+import { decodeSymbol } from "../domain/label-print-decoder";
+import { binaryParser, certificateObjectKeys, pdfUpload, postMultipartMovement, postReceipt, receiptFields, uniqueSuffix } from "./receipts-fixtures";
 
 let stores: string;
 let auditor: string;
@@ -238,5 +240,22 @@ describe("GET /api/stock", () => {
 
     expect((await http().get("/api/stock").query({ status: "installed" }).set("cookie", stores)).status).toBe(422);
     expect((await http().get("/api/stock").set("cookie", await signInAs("technician"))).status).toBe(403);
+  });
+});
+
+describe("GET /api/parts/{id}/label.png", () => {
+  it("renders each symbol as a PNG that decodes back to the unit's P/N, S/N and CAGE", async () => {
+    const serialNumber = uniqueSuffix("LBL");
+    const partId = await receiveUnit({ serialNumber });
+    const technician = await signInAs("technician");
+    for (const symbol of ["datamatrix", "code128"] as const) {
+      const response = await http().get(`/api/parts/${partId}/label.png`).query({ symbol }).set("cookie", technician).buffer(true).parse(binaryParser);
+      expect(response.status, symbol).toBe(200);
+      expect(response.headers["content-type"]).toBe("image/png");
+      expect(parseLabel(decodeSymbol(response.body as Buffer, symbol))).toMatchObject({ ok: true, partNumber: "QF-3242-50", serialNumber, cage: "Q4B22" });
+    }
+    expect((await http().get(`/api/parts/${partId}/label.png`).query({ symbol: "qr" }).set("cookie", technician)).status).toBe(422);
+    expect((await http().get("/api/parts/99999999/label.png").set("cookie", technician)).status).toBe(404);
+    expect((await http().get(`/api/parts/${partId}/label.png`)).status).toBe(401);
   });
 });

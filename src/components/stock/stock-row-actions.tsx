@@ -10,15 +10,17 @@ export function StockRowActions({ unit, kinds }: { unit: MovementTarget; kinds: 
   const [open, setOpen] = useState(false);
   const [done, setDone] = useState<string | null>(null);
   return (
-    <div className="flex flex-wrap items-center gap-2">
-      {kinds.length > 0 ? (
-        <button type="button" className="btn btn-secondary" onClick={() => (setDone(null), setOpen(true))} aria-label={`Record a movement for S/N ${unit.serialNumber}`}>
-          Move…
-        </button>
-      ) : null}
-      <Link href={`/parts/${unit.id}/label`} className="btn btn-secondary" aria-label={`Label for S/N ${unit.serialNumber}`}>
-        Label
-      </Link>
+    <div>
+      <div className="flex items-center gap-2">
+        {kinds.length > 0 ? (
+          <button type="button" className="btn btn-secondary" onClick={() => (setDone(null), setOpen(true))} aria-label={`Record a movement for S/N ${unit.serialNumber}`}>
+            Move…
+          </button>
+        ) : null}
+        <Link href={`/parts/${unit.id}/label`} className="btn btn-secondary" aria-label={`Label for S/N ${unit.serialNumber}`}>
+          Label
+        </Link>
+      </div>
       {open ? (
         <MovementDialog
           unit={unit}
@@ -30,7 +32,7 @@ export function StockRowActions({ unit, kinds }: { unit: MovementTarget; kinds: 
           }}
         />
       ) : null}
-      <p role="status" className={done ? "basis-full text-sm font-semibold" : "sr-only"}>
+      <p role="status" className={done ? "mt-1 max-w-xs text-sm font-semibold" : "sr-only"}>
         {done ?? ""}
       </p>
     </div>

@@ -111,12 +111,12 @@ export default async function StockPage({ searchParams }: { searchParams: Promis
                 return (
                   <tr key={unit.id} className="border-b border-[var(--rule)] align-top">
                     <td className="px-3 py-2"><StatusBadge status={unit.status} /></td>
-                    <td className="px-3 py-2 num">{unit.partNumber}</td>
-                    <td className="px-3 py-2 num">
+                    <td className="px-3 py-2 num whitespace-nowrap">{unit.partNumber}</td>
+                    <td className="px-3 py-2 num whitespace-nowrap">
                       <Link href={`/parts/${unit.id}`} className="underline">{unit.serialNumber}</Link>
                     </td>
                     <td className="px-3 py-2">{unit.description}</td>
-                    <td className="px-3 py-2 num">{unit.bin ?? (unit.issuedTo ? "Out on issue" : "—")}</td>
+                    <td className="px-3 py-2">{unit.bin ? <span className="num">{unit.bin}</span> : unit.issuedTo ? "Out on issue" : unit.status === "in_repair" ? "At the shop" : unit.lastMovement?.kind === "removed" ? "Not yet back from the aircraft" : "—"}</td>
                     <td className="px-3 py-2 num">{unit.tsn}</td>
                     <td className="px-3 py-2 num">{formatCycles(unit.csn)}</td>
                     <td className="px-3 py-2 text-sm">
