@@ -2,7 +2,7 @@ import "server-only";
 import type { User } from "lucia";
 import { formatFlightTime } from "@/domain/flight-time";
 import type { PartStatus } from "@/domain/ledger-types";
-import { FORM_TYPE_LABELS, STATUS_WORD_LABELS, type PartNumberRequest, type ReceiptFields } from "@/lib/schemas/receiving";
+import type { PartNumberRequest, ReceiptFields } from "@/lib/schemas/receiving";
 import { db, type Trx } from "./db";
 import {
   assertTrackingNumberUnused,
@@ -16,7 +16,8 @@ import {
 import { serverEnv } from "./env";
 import { AppError, invalidField } from "./errors";
 import { appendLedgerEntries, type NewLedgerEntry } from "./ledger";
-import { kickOutbox, queueMail, type OutgoingMail } from "./mail";
+import { kickOutbox, queueMail } from "./mail";
+import { emailsOfRole, quarantineMail } from "./role-mail";
 
 export interface CatalogPartNumber {
   id: number;
@@ -106,32 +107,6 @@ export interface ReceiptResult {
   part: ReceivedPart;
   document: DocumentSummary;
   entries: Array<{ seq: number; kind: string; hash: string }>;
-}
-
-async function emailsOfRole(trx: Trx, role: "auditor" | "admin"): Promise<string[]> {
-  const rows = await trx("users").where({ role, status: "active" }).select("email");
-  return rows.map((r) => r.email);
-}
-
-/** Mail to quality (every active auditor) about a unit put in quarantine. */
-export async function quarantineMail(
-  trx: Trx,
-  input: { partId: number; partNumber: string; serialNumber: string; reason: string; actor: User; context: string },
-): Promise<OutgoingMail[]> {
-  const link = `${serverEnv().APP_URL}/parts/${input.partId}`;
-  return (await emailsOfRole(trx, "auditor")).map((to) => ({
-    to,
-    subject: `Quarantined: P/N ${input.partNumber} S/N ${input.serialNumber} (${input.context})`,
-    text: [
-      `${input.actor.name} put this unit in quarantine (${input.context}).`,
-      "",
-      `Part number: ${input.partNumber}`,
-      `Serial number: ${input.serialNumber}`,
-      `Reason: ${input.reason}`,
-      "",
-      `The unit may not be fitted until quality releases it: ${link}`,
-    ].join("\n"),
-  }));
 }
 
 /**
@@ -268,5 +243,3 @@ export async function requestCatalogPartNumber(input: { actor: User; request: Pa
   return { queued };
 }
 
-export const certificateLabel = (formType: string | null) => (formType ? (FORM_TYPE_LABELS as Record<string, string>)[formType] ?? formType : "—");
-export const statusWordLabel = (word: string | null) => (word ? (STATUS_WORD_LABELS as Record<string, string>)[word] ?? word : "—");

@@ -14,6 +14,7 @@ import {
 } from "@/lib/schemas/receiving";
 import { Field, type ApiError } from "./field";
 import { PartNumberRequestButton } from "./part-number-request-button";
+import { ReceiptCheckFields } from "./receipt-check-fields";
 import { ReceiptDone, type ReceiptAnswer } from "./receipt-done";
 import { ScanLabelField } from "./scan-label-field";
 import { uploadWithProgress } from "./upload-with-progress";
@@ -234,53 +235,16 @@ export function ReceiptForm({ catalog }: { catalog: CatalogEntry[] }) {
         {text("bin", "Bin", { autoComplete: "off", className: "field-input num uppercase" })}
       </fieldset>
 
-      <fieldset className="panel space-y-4 p-4">
-        <legend className="px-1 text-lg font-semibold">Check and attach</legend>
-        <div role="radiogroup" aria-labelledby="receipt-match-label" aria-describedby={errors.certificateMatches ? `${idOf("certificateMatches")}-error` : undefined}>
-          <p id="receipt-match-label" className="field-label">
-            Do the P/N and S/N on the certificate match the unit&apos;s data plate?
-          </p>
-          <div id={idOf("certificateMatches")} className="flex flex-wrap gap-3">
-            {[
-              ["true", "Yes, they match"],
-              ["false", "No: record a receiving discrepancy"],
-            ].map(([value, label]) => (
-              <label key={value} className="flex min-h-touch cursor-pointer items-center gap-2 rounded-md border-2 border-[var(--ink-soft)] px-3">
-                <input type="radio" name="certificateMatches" value={value} checked={values.certificateMatches === value} onChange={() => set("certificateMatches", value)} className="h-5 w-5" />
-                {label}
-              </label>
-            ))}
-          </div>
-          {errors.certificateMatches ? (
-            <p id={`${idOf("certificateMatches")}-error`} className="field-error">
-              {errors.certificateMatches}
-            </p>
-          ) : null}
-        </div>
-        {values.certificateMatches === "false" ? (
-          <>
-            <p className="rounded-md border-2 border-red-800 bg-red-50 p-3 font-semibold text-red-950 dark:bg-red-950 dark:text-red-50">
-              The unit will be booked in as quarantined and quality will be told. Do not issue or fit it until quality releases it.
-            </p>
-            <Field id={idOf("discrepancyNote")} label="What differs?" error={errors.discrepancyNote}>
-              {(aria) => <textarea {...aria} name="discrepancyNote" rows={2} className="field-input" value={values.discrepancyNote ?? ""} onChange={(e) => set("discrepancyNote", e.target.value)} />}
-            </Field>
-          </>
-        ) : null}
-        <Field id={idOf("certificate")} label="Certificate file" error={errors.certificate} hint={`PDF, JPEG or PNG, up to ${MB} MB.`}>
-          {(aria) => (
-            <input
-              {...aria}
-              ref={fileInput}
-              type="file"
-              name="certificate"
-              accept="application/pdf,image/jpeg,image/png,.pdf,.jpg,.jpeg,.png"
-              className="field-input py-2"
-              onChange={(e) => setFile(e.target.files?.[0] ?? null)}
-            />
-          )}
-        </Field>
-      </fieldset>
+      <ReceiptCheckFields
+        match={values.certificateMatches}
+        note={values.discrepancyNote ?? ""}
+        onMatch={(value) => set("certificateMatches", value)}
+        onNote={(value) => set("discrepancyNote", value)}
+        onFile={setFile}
+        fileInput={fileInput}
+        errors={errors}
+        idOf={idOf}
+      />
 
       <div className="sticky bottom-0 z-10 -mx-3 space-y-2 border-t border-[var(--rule)] bg-[var(--page)] px-3 py-3 sm:-mx-5 sm:px-5">
         {upload.isPending ? (

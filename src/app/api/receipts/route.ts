@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { AREA_ROLES } from "@/lib/roles";
 import { ReceiptFieldsSchema } from "@/lib/schemas/receiving";
-import { checkCertificateFile, fileField, readMultipart, textFields } from "@/server/documents";
+import { checkCertificateFile } from "@/server/documents";
+import { fileField, readMultipart, textFields } from "@/server/multipart";
 import { AppError } from "@/server/errors";
 import { route, zodFields } from "@/server/http";
 import { receivePart } from "@/server/receiving";

@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { MOVEMENT_ROLES, MovementSchema } from "@/lib/schemas/stock";
-import { checkCertificateFile, fileField, readMultipart, textFields } from "@/server/documents";
+import { checkCertificateFile } from "@/server/documents";
+import { fileField, readMultipart, textFields } from "@/server/multipart";
 import { readJson, route } from "@/server/http";
 import { assertMayRecord, recordMovement } from "@/server/stock-movements";
 
