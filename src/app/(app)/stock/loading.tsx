@@ -1,0 +1,3 @@
+export default function Loading() {
+  return <p role="status" className="p-4">Loading stock…</p>;
+}
