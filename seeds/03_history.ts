@@ -57,6 +57,7 @@ export async function seed(knex: Knex): Promise<void> {
     uploads.push({ key, body });
     documents.push({
       id,
+      part_id: entry.partId,
       kind: "release_certificate",
       form_type: id % 3 === 0 ? "easa_form_1" : "faa_8130_3",
       tracking_number: tracking,

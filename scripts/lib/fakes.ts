@@ -55,7 +55,7 @@ function stopChild(child: ChildProcess): Promise<void> {
   });
 }
 
-/** maildev: SMTP on one port, and a web inbox (with a REST API at /email) on another. */
+/** maildev: SMTP on one port, and a web inbox (with a REST API at /api/email) on another. */
 export async function startMailFake(options: {
   dir: string;
   smtpPort: number;

@@ -14,7 +14,7 @@ export default async function SignedInLayout({ children }: { children: ReactNode
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:bg-white focus:p-2">
         Skip to content
       </a>
-      <header className="relative bg-thread-800 text-white">
+      <header className="no-print relative bg-thread-800 text-white">
         <div className="mx-auto flex max-w-screen-2xl flex-wrap items-center gap-3 px-3 py-2">
           <Link href="/" className="flex min-h-touch items-center gap-2 text-lg font-bold">
             <LogoMark /> <span>Threadline</span>

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { DocumentList } from "@/components/documents/document-list";
 import { ThreadTable } from "@/components/parts/thread-table";
 import { PartStatusBadge } from "@/components/status/part-status";
 import { formatCycles, formatInstant } from "@/lib/format";
@@ -41,6 +42,9 @@ export default async function PartPage({ params }: Params) {
           <span>
             CAGE <span className="num">{part.cage}</span>
           </span>
+          <Link href={`/parts/${part.id}/label`} className="btn btn-secondary">
+            Print label
+          </Link>
           <span>
             {part.fittedAt ? (
               <>
@@ -112,20 +116,7 @@ export default async function PartPage({ params }: Params) {
         <h2 id="documents-heading" className="mb-2 text-lg font-semibold">
           Documents
         </h2>
-        {part.documents.length ? (
-          <ul className="space-y-1">
-            {part.documents.map((d) => (
-              <li key={d.id}>
-                <a className="font-semibold text-[var(--accent)] underline" href={`/api/documents/${d.id}`}>
-                  {d.kind.replace(/_/g, " ")} {d.trackingNumber ? `· ${d.trackingNumber}` : ""}
-                </a>{" "}
-                <span className="num text-sm">SHA-256 {d.sha256.slice(0, 16)}…</span>
-              </li>
-            ))}
-          </ul>
-        ) : (
-          <p>No documents are on file for this unit.</p>
-        )}
+        <DocumentList documents={part.documents} />
       </section>
 
       <section aria-labelledby="thread-heading" className="space-y-2">
