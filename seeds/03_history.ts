@@ -53,7 +53,7 @@ export async function seed(knex: Knex): Promise<void> {
       `Status/work: ${statusWork}`,
       `Date: ${entry.occurredAt.slice(0, 10)}`,
     ]);
-    const key = `certificates/demo-${String(id).padStart(6, "0")}.pdf`;
+    const key = `demo-certificates/${String(id).padStart(6, "0")}.pdf`;
     uploads.push({ key, body });
     documents.push({
       id,

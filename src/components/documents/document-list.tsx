@@ -1,6 +1,7 @@
 "use client";
 
 import { useState } from "react";
+import { formatInstant } from "@/lib/format";
 import { FORM_TYPE_LABELS } from "@/lib/schemas/receiving";
 
 /** A document as getPartDetail lists it. */
@@ -60,7 +61,6 @@ export function DocumentList({ documents, timeZone = "UTC" }: { documents: PartD
   if (documents.length === 0) {
     return <p>No documents on file. A serviceable unit needs its release certificate: receive it through Receiving.</p>;
   }
-  const when = new Intl.DateTimeFormat("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short", timeZoneName: "short" });
   return (
     <ul className="space-y-3" aria-label="Documents">
       {documents.map((doc) => (
@@ -77,7 +77,7 @@ export function DocumentList({ documents, timeZone = "UTC" }: { documents: PartD
                 ) : null}
               </p>
               <p className="text-sm">
-                {TYPE_LABELS[doc.contentType] ?? doc.contentType}, <span className="num">{size(doc.sizeBytes)}</span>, uploaded {when.format(new Date(doc.uploadedAt))}
+                {TYPE_LABELS[doc.contentType] ?? doc.contentType}, <span className="num">{size(doc.sizeBytes)}</span>, uploaded {formatInstant(doc.uploadedAt, timeZone)}
               </p>
               <p className="text-sm">
                 SHA-256 <span className="num select-all break-all">{doc.sha256}</span>
