@@ -33,3 +33,26 @@ describe("migrations", () => {
     }
   });
 });
+
+describe("the schema stays within what a Galera cluster supports", () => {
+  it("has only InnoDB tables, each with a primary key", async () => {
+    const env = testEnv();
+    const knex = knexFactory(knexConfig({ ...process.env, ...env }));
+    try {
+      const [tables] = await knex.raw(
+        `SELECT t.table_name AS name, t.engine AS engine,
+                (SELECT COUNT(*) FROM information_schema.table_constraints c
+                  WHERE c.table_schema = t.table_schema AND c.table_name = t.table_name AND c.constraint_type = 'PRIMARY KEY') AS primary_keys
+           FROM information_schema.tables t WHERE t.table_schema = ? AND t.table_type = 'BASE TABLE'`,
+        [env.DB_NAME],
+      );
+      expect(tables.length).toBeGreaterThan(10);
+      for (const table of tables) {
+        expect(table.engine, table.name).toBe("InnoDB");
+        expect(Number(table.primary_keys), `${table.name} has no primary key`).toBe(1);
+      }
+    } finally {
+      await knex.destroy();
+    }
+  });
+});
