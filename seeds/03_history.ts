@@ -1,5 +1,6 @@
 import type { Knex } from "knex";
 import { GENESIS_HASH, chainEntry } from "../src/domain/ledger-hash";
+import { entryToRow } from "../src/lib/ledger-rows";
 import { DEMO_PART_NUMBERS } from "./lib/catalog-data";
 import { DEMO_USERS, DEMO_NOW } from "./lib/demo";
 import { demoCertificatePdf, sha256, uploadAll } from "./lib/certificates";
@@ -91,32 +92,7 @@ export async function seed(knex: Knex): Promise<void> {
   const rows = history.entries.map((entry) => {
     const chained = chainEntry(prevHash, entry);
     prevHash = chained.hash;
-    return {
-      seq: entry.seq,
-      kind: entry.kind,
-      part_id: entry.partId,
-      aircraft_id: entry.aircraftId,
-      position_id: entry.positionId,
-      occurred_at: new Date(entry.occurredAt),
-      recorded_at: new Date(entry.recordedAt),
-      recorded_by: entry.recordedBy,
-      aircraft_minutes: entry.aircraftMinutes,
-      aircraft_cycles: entry.aircraftCycles,
-      tsn_minutes: entry.tsnMinutes,
-      csn: entry.csn,
-      tso_minutes: entry.tsoMinutes,
-      cso: entry.cso,
-      removal_type: entry.removalType,
-      reason: entry.reason,
-      work_order: entry.workOrder,
-      task_reference: entry.taskReference,
-      test_result: entry.testResult,
-      document_id: entry.documentId,
-      corrects_seq: entry.correctsSeq,
-      details: entry.details ? JSON.stringify(entry.details) : null,
-      prev_hash: chained.prevHash,
-      hash: chained.hash,
-    };
+    return entryToRow(chained);
   });
   await knex.batchInsert("ledger_entries", rows, 1000);
   await knex("ledger_head").where({ id: 1 }).update({ last_seq: rows.length, last_hash: prevHash });

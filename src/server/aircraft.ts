@@ -73,6 +73,21 @@ function aircraftBaseQuery(trx: Trx) {
     );
 }
 
+/** The aircraft as the API and the pages show it in a header. */
+export function aircraftHeader(aircraft: AircraftSummary) {
+  return {
+    registration: aircraft.registration,
+    msn: aircraft.msn,
+    type: aircraft.type,
+    typeName: aircraft.typeName,
+    station: aircraft.station,
+    timeZone: aircraft.timeZone,
+    hours: aircraft.hours,
+    cycles: aircraft.cycles,
+    asOf: aircraft.asOf,
+  };
+}
+
 export async function listFleet(trx: Trx = db()): Promise<AircraftSummary[]> {
   const rows = await aircraftBaseQuery(trx).orderBy("a.registration");
   return rows.map(toSummary);

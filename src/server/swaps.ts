@@ -9,25 +9,12 @@ import { AppError } from "./errors";
 import { appendLedgerEntries, type AppendedEntry } from "./ledger";
 import { assertLicenceValid } from "./licences";
 import { kickOutbox, queueMail } from "./mail";
-import type { SwapCheck } from "@/lib/swap-types";
+import type { SwapCheck, SwapResponse } from "@/lib/swap-types";
 import { firstFailure, planSwap } from "./swap-checks";
 
 export interface SwapResult {
   status: 201;
-  body: {
-    swap: {
-      id: string;
-      registration: string;
-      positionCode: string;
-      performedAt: string;
-      performedBy: { id: string; name: string; licenceNumber: string | null };
-      inspectionRequired: boolean;
-      status: "complete" | "awaiting_inspection";
-      removed: { partId: number; partNumber: string; serialNumber: string; tsn: string; csn: number } | null;
-      installed: { partId: number; partNumber: string; serialNumber: string; tsn: string; csn: number } | null;
-    };
-    entries: AppendedEntry[];
-  };
+  body: SwapResponse;
 }
 
 /** A stable digest of the request, so a reused Idempotency-Key with a different body is caught. */

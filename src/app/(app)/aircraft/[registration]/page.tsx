@@ -6,7 +6,7 @@ import { UtilizationPanel } from "@/components/airframe/utilization-panel";
 import { formatCycles, formatInstant } from "@/lib/format";
 import { mayUse } from "@/lib/roles";
 import { registrationParam } from "@/lib/schemas/common";
-import { getPositionMap, listUtilization } from "@/server/aircraft";
+import { aircraftHeader, getPositionMap, listUtilization } from "@/server/aircraft";
 import { AppError } from "@/server/errors";
 import { requireUserFor } from "@/server/page-guard";
 
@@ -46,17 +46,7 @@ export default async function AirframePage({ params }: Params) {
       <Suspense>
         <AirframeView
           initial={{
-            aircraft: {
-              registration: aircraft.registration,
-              msn: aircraft.msn,
-              type: aircraft.type,
-              typeName: aircraft.typeName,
-              station: aircraft.station,
-              timeZone: aircraft.timeZone,
-              hours: aircraft.hours,
-              cycles: aircraft.cycles,
-              asOf: aircraft.asOf,
-            },
+            aircraft: aircraftHeader(aircraft),
             positions: map.positions,
           }}
           canSwap={mayUse(user.role, "swap")}

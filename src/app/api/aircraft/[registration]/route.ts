@@ -1,23 +1,13 @@
 import { ROLES } from "@/lib/roles";
 import { registrationParam } from "@/lib/schemas/common";
-import { getPositionMap } from "@/server/aircraft";
+import { aircraftHeader, getPositionMap } from "@/server/aircraft";
 import { route } from "@/server/http";
 
 // GET /api/aircraft/{registration} - one aircraft with every position and what is fitted there
 export const GET = route<{ registration: string }>(ROLES, async ({ params }) => {
   const { aircraft, positions } = await getPositionMap(registrationParam.parse(params.registration));
   return {
-    aircraft: {
-      registration: aircraft.registration,
-      msn: aircraft.msn,
-      type: aircraft.type,
-      typeName: aircraft.typeName,
-      station: aircraft.station,
-      timeZone: aircraft.timeZone,
-      hours: aircraft.hours,
-      cycles: aircraft.cycles,
-      asOf: aircraft.asOf,
-    },
+    aircraft: aircraftHeader(aircraft),
     positions,
   };
 });
