@@ -13,6 +13,7 @@ export const ROLE_TASKS: Record<Role, RoleTask[]> = {
     { area: "fleet", href: "/fleet", title: "Find the aircraft", detail: "Open the Fleet, pick the registration and the position on its map." },
     { area: "fleet", href: "/fleet", title: "Record a swap", detail: "At the position, scan the off part and the on part and sign the change." },
     { area: "parts", href: "/parts", title: "Look up a unit", detail: "Search a serial or part number to see where it is and its times." },
+    { area: "home", href: "/scan-check", title: "Check a label", detail: "Try the camera on a part label before the job, and see what Threadline reads." },
   ],
   inspector: [
     { area: "fleet", href: "/fleet", title: "Check the fleet", detail: "See what is fitted where and which positions carry findings." },
