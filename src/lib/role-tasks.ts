@@ -16,6 +16,7 @@ export const ROLE_TASKS: Record<Role, RoleTask[]> = {
     { area: "home", href: "/scan-check", title: "Check a label", detail: "Try the camera on a part label before the job, and see what Threadline reads." },
   ],
   inspector: [
+    { area: "inspections", href: "/inspections", title: "Countersign swaps", detail: "Swaps at positions that need an independent inspection wait here for your signature." },
     { area: "fleet", href: "/fleet", title: "Check the fleet", detail: "See what is fitted where and which positions carry findings." },
     { area: "parts", href: "/parts", title: "Look up a unit", detail: "Search a serial to see its status, times and thread." },
     { area: "stock", href: "/stock", title: "Review stock", detail: "See quarantined and unserviceable units waiting for a decision." },

@@ -16,6 +16,7 @@ export type Area =
   | "home"
   | "fleet"
   | "swap"
+  | "inspections"
   | "parts"
   | "receiving"
   | "stock"
@@ -35,6 +36,7 @@ export const AREA_ROLES: Record<Area, readonly Role[]> = {
   fleet: everyone,
   parts: everyone,
   swap: ["technician", "inspector"],
+  inspections: ["inspector"],
   receiving: ["stores", "admin"],
   stock: ["stores", "inspector", "auditor", "admin"],
   removals: ["reliability", "auditor", "admin"],
@@ -61,6 +63,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { area: "fleet", href: "/fleet", label: "Fleet" },
   { area: "parts", href: "/parts", label: "Parts" },
+  { area: "inspections", href: "/inspections", label: "Inspections" },
   { area: "receiving", href: "/receiving", label: "Receiving" },
   { area: "stock", href: "/stock", label: "Stock" },
   { area: "removals", href: "/removals", label: "Removals" },

@@ -29,3 +29,17 @@ export interface SwapResponse {
   };
   entries: Array<{ seq: number; kind: string; hash: string }>;
 }
+
+export interface AwaitingInspection {
+  id: string;
+  registration: string;
+  positionCode: string;
+  positionLabel: string;
+  performedAt: string;
+  performedBy: string;
+  performedById: string;
+  removed: string | null;
+  installed: string | null;
+  workOrder: string | null;
+}
+

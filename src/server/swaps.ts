@@ -9,7 +9,7 @@ import { AppError } from "./errors";
 import { appendLedgerEntries, type AppendedEntry } from "./ledger";
 import { assertLicenceValid } from "./licences";
 import { kickOutbox, queueMail } from "./mail";
-import type { SwapCheck, SwapResponse } from "@/lib/swap-types";
+import type { AwaitingInspection, SwapCheck, SwapResponse } from "@/lib/swap-types";
 import { firstFailure, planSwap } from "./swap-checks";
 
 export interface SwapResult {
@@ -255,4 +255,33 @@ export async function countersignSwap(input: { swapId: string; inspector: User; 
     await trx("swaps").where({ id: input.swapId }).update({ inspected_by: input.inspector.id, inspected_at: now });
     return { swap: { id: input.swapId, status: "complete", inspectedBy: { id: input.inspector.id, name: input.inspector.name, licenceNumber: input.inspector.licenceNumber }, inspectedAt: now.toISOString() } };
   });
+}
+
+/** Swaps at positions that require an independent inspection and are not yet countersigned, oldest first. */
+export async function listAwaitingInspection(): Promise<AwaitingInspection[]> {
+  const rows = await db()("swaps as s")
+    .join("positions as p", "p.id", "s.position_id")
+    .join("aircraft as a", "a.id", "s.aircraft_id")
+    .join("users as u", "u.id", "s.performed_by")
+    .leftJoin("ledger_entries as r", "r.seq", "s.removed_seq")
+    .leftJoin("parts as rp", "rp.id", "r.part_id")
+    .leftJoin("ledger_entries as i", "i.seq", "s.installed_seq")
+    .leftJoin("parts as ip", "ip.id", "i.part_id")
+    .where("p.requires_independent_inspection", true)
+    .whereNull("s.inspected_by")
+    .orderBy("s.performed_at")
+    .limit(200)
+    .select("s.id", "a.registration", "p.code", "p.label", "s.performed_at", "u.name", "u.id as user_id", "rp.serial_number as removed", "ip.serial_number as installed", "i.work_order", "r.work_order as removed_work_order");
+  return rows.map((row) => ({
+    id: row.id,
+    registration: row.registration,
+    positionCode: row.code,
+    positionLabel: row.label,
+    performedAt: new Date(row.performed_at).toISOString(),
+    performedBy: row.name,
+    performedById: row.user_id,
+    removed: row.removed,
+    installed: row.installed,
+    workOrder: row.work_order ?? row.removed_work_order,
+  }));
 }

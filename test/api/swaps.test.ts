@@ -131,6 +131,11 @@ describe("POST /api/swaps", () => {
     expect(response.body.swap.status).toBe("awaiting_inspection");
     const id = response.body.swap.id;
 
+    const waiting = await http().get("/inspections").set("cookie", inspector);
+    expect(waiting.status).toBe(200);
+    expect(waiting.text).toContain(spare.serialNumber);
+    expect((await http().get("/inspections").set("cookie", technician)).status).toBe(403);
+
     expect((await http().post(`/api/swaps/${id}/inspection`).set("cookie", technician)).status).toBe(403);
     const signed = await http().post(`/api/swaps/${id}/inspection`).set("cookie", inspector);
     expect(signed.status).toBe(200);
