@@ -167,7 +167,7 @@ describe("a thread built through the API across three aircraft", () => {
     const map = await http().get("/api/aircraft/Q-FRAB").set("cookie", auditor);
     const position = map.body.positions.find((p: { code: string }) => p.code === "B3-EBA1");
     expect(position).toMatchObject({ findings: 2, state: "finding", fitted: { serialNumber: serial } });
-    const clean = map.body.positions.find((p: { code: string; fitted: unknown }) => p.code !== "B3-EBA1" && p.fitted && p.findings === 0);
+    const clean = map.body.positions.find((p: { code: string; fitted: unknown; findings: number }) => p.code !== "B3-EBA1" && p.fitted && p.findings === 0);
     expect(clean?.state).not.toBe("finding");
 
     // Removed from B through the API; the thread still has exactly those two findings.
