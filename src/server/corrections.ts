@@ -141,7 +141,7 @@ export async function recordCorrection(input: { correction: CorrectionInput; act
         recordedBy: input.actor.id,
         reason: c.reason,
         correctsSeq: c.correctsSeq,
-        details: detailsOut && Object.keys(detailsOut).length === 0 && details === null ? null : detailsOut,
+        details: detailsOut,
       },
     ]);
     return { entry: { ...entry, correctsSeq: c.correctsSeq }, changed };
