@@ -36,7 +36,7 @@ export function TraceSearchForm({ values, errors = {} }: Props) {
     <form method="get" action="/trace" className="panel flex flex-wrap items-start gap-3 p-4" role="search" aria-label="Trace a serial">
       {field("serial", "Serial number", "Exactly as marked on the unit.", "w-full sm:w-64")}
       {field("partNumber", "Part number (optional)", "Narrows the search when serials repeat.", "w-full sm:w-56")}
-      {field("cage", "CAGE code (optional)", "Five characters.", "w-full sm:w-40")}
+      {field("cage", "CAGE (optional)", "Five characters.", "w-full sm:w-44")}
       <div className="w-full sm:w-auto sm:pt-7">
         <button type="submit" className="btn btn-primary w-full sm:w-auto">
           Trace

@@ -60,10 +60,24 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
         <section key={group.entries[0].seq} className="thread-group panel overflow-hidden" aria-label={groupTitle(group)}>
           <h3 className={`flex flex-wrap items-center gap-2 border-b border-[var(--rule)] px-3 py-2 font-semibold ${group.kind === "shop" ? "bg-amber-50 dark:bg-amber-950" : group.kind === "airframe" ? "bg-thread-50 dark:bg-thread-900" : ""}`}>
             <span aria-hidden="true">{group.kind === "airframe" ? "✈" : group.kind === "shop" ? "⚙" : "▤"}</span>
-            <span className="num">{groupTitle(group)}</span>
+            <span>{groupTitle(group)}</span>
           </h3>
           <div className="overflow-x-auto">
-            <table className="w-full border-collapse text-sm">
+            {/* Fixed columns, so every stretch's table lines up with the next one down the page. */}
+            <table className="w-full min-w-[76em] table-fixed border-collapse text-sm">
+              <colgroup>
+                <col className="w-[4em]" />
+                <col className="w-[15%]" />
+                <col className="w-[8.5em]" />
+                <col className="w-[9%]" />
+                <col className="w-[10em]" />
+                <col className="w-[10em]" />
+                <col className="w-[8.5em]" />
+                <col className="w-[10%]" />
+                <col className="w-[9%]" />
+                <col />
+                <col className={variant === "print" ? "w-[12em]" : "w-[10em]"} />
+              </colgroup>
               <thead className="text-left">
                 <tr className="border-b border-[var(--rule)]">
                   <th scope="col" className="px-2 py-1">Seq</th>
@@ -131,7 +145,7 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
                           </p>
                         ))}
                       </td>
-                      <td className="num px-2 py-1 whitespace-nowrap">{formatInstant(entry.occurredAt)}</td>
+                      <td className="num px-2 py-1">{formatInstant(entry.occurredAt)}</td>
                       <td className="num px-2 py-1">
                         {entry.registration ? (
                           <>
@@ -185,7 +199,7 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
                           "—"
                         )}
                       </td>
-                      <td className="num px-2 py-1 text-xs break-all" style={{ minWidth: variant === "print" ? "11rem" : "9rem" }}>
+                      <td className="num px-2 py-1 text-xs break-all">
                         {variant === "print" ? entry.hash : <span title={entry.hash}>{entry.hash.slice(0, 16)}…</span>}
                       </td>
                     </tr>
