@@ -127,6 +127,25 @@ describe("the auditor's trace", () => {
     await page.close();
   });
 
+  it("marks a position on the map whose fitted unit has a finding", async () => {
+    const fleet = await http().get("/api/aircraft").set("cookie", auditorCookie);
+    let flagged: { registration: string; code: string; findings: number } | null = null;
+    for (const { registration } of fleet.body.aircraft as Array<{ registration: string }>) {
+      const detail = await http().get(`/api/aircraft/${registration}`).set("cookie", auditorCookie);
+      const position = (detail.body.positions as Array<{ code: string; state: string; findings: number }>).find((p) => p.state === "finding");
+      if (position) {
+        flagged = { registration, code: position.code, findings: position.findings };
+        break;
+      }
+    }
+    expect(flagged, "some fitted demo unit should carry a finding").not.toBeNull();
+    const page = await browser!.newPage();
+    await signInThroughPage(page, "auditor", `/aircraft/${flagged!.registration}?position=${encodeURIComponent(flagged!.code)}`);
+    await expect.poll(() => page.getByTestId("position-detail").textContent()).toContain("Has a finding");
+    await screenshot(page, "trace-position-map");
+    await page.close();
+  });
+
   it("refuses the trace to a technician with the 403 page", async () => {
     const page = await browser!.newPage();
     await signInThroughPage(page, "technician", "/");

@@ -68,15 +68,13 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
               <colgroup>
                 <col className="w-[4em]" />
                 <col className="w-[15%]" />
-                <col className="w-[8.5em]" />
+                <col className="w-[7.5em]" />
                 <col className="w-[9%]" />
-                <col className="w-[10em]" />
-                <col className="w-[10em]" />
-                <col className="w-[8.5em]" />
+                <col className="w-[13em]" />
                 <col className="w-[10%]" />
                 <col className="w-[9%]" />
                 <col />
-                <col className={variant === "print" ? "w-[12em]" : "w-[10em]"} />
+                <col className={variant === "print" ? "w-[10em]" : "w-[8em]"} />
               </colgroup>
               <thead className="text-left">
                 <tr className="border-b border-[var(--rule)]">
@@ -84,9 +82,9 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
                   <th scope="col" className="px-2 py-1">Entry</th>
                   <th scope="col" className="px-2 py-1">When (UTC)</th>
                   <th scope="col" className="px-2 py-1">Aircraft · position</th>
-                  <th scope="col" className="px-2 py-1 text-right">A/C hours · cycles</th>
-                  <th scope="col" className="px-2 py-1 text-right">TSN · CSN</th>
-                  <th scope="col" className="px-2 py-1 text-right">TSO · CSO</th>
+                  <th scope="col" className="px-2 py-1">
+                    Times <span className="block text-xs font-normal">A/C hours · cycles; unit TSN · CSN, TSO · CSO</span>
+                  </th>
                   <th scope="col" className="px-2 py-1">Work order · task</th>
                   <th scope="col" className="px-2 py-1">Signed (licence)</th>
                   <th scope="col" className="px-2 py-1">Documents</th>
@@ -156,14 +154,21 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
                           "—"
                         )}
                       </td>
-                      <td className="num px-2 py-1 text-right whitespace-nowrap">
-                        {entry.aircraftHours ?? "—"} · {formatCycles(entry.aircraftCycles)}
-                      </td>
-                      <td className="num px-2 py-1 text-right whitespace-nowrap">
-                        {entry.tsn ?? "—"} · {formatCycles(entry.csn)}
-                      </td>
-                      <td className="num px-2 py-1 text-right whitespace-nowrap">
-                        {entry.tso ?? "—"} · {formatCycles(entry.cso)}
+                      <td className="px-2 py-1">
+                        <dl className="grid grid-cols-[max-content_1fr] gap-x-2">
+                          <dt className="text-xs font-semibold">A/C</dt>
+                          <dd className="num text-right whitespace-nowrap">
+                            {entry.aircraftHours ?? "—"} · {formatCycles(entry.aircraftCycles)}
+                          </dd>
+                          <dt className="text-xs font-semibold">TSN·CSN</dt>
+                          <dd className="num text-right whitespace-nowrap">
+                            {entry.tsn ?? "—"} · {formatCycles(entry.csn)}
+                          </dd>
+                          <dt className="text-xs font-semibold">TSO·CSO</dt>
+                          <dd className="num text-right whitespace-nowrap">
+                            {entry.tso ?? "—"} · {formatCycles(entry.cso)}
+                          </dd>
+                        </dl>
                       </td>
                       <td className="num px-2 py-1">
                         {entry.workOrder ?? "—"}
@@ -200,7 +205,7 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
                         )}
                       </td>
                       <td className="num px-2 py-1 text-xs break-all">
-                        {variant === "print" ? entry.hash : <span title={entry.hash}>{entry.hash.slice(0, 16)}…</span>}
+                        {variant === "print" ? entry.hash : <span title={entry.hash}>{entry.hash.slice(0, 12)}…</span>}
                       </td>
                     </tr>
                   );

@@ -21,7 +21,9 @@ export const metadata: Metadata = { title: "Trace report" };
 const PRINT_CSS = `
 @media print {
   @page { size: A4 landscape; margin: 10mm; }
-  .trace-report { font-size: 8.5pt; }
+  .trace-report { font-size: 9pt; }
+  .trace-report table { font-size: 7.5pt; min-width: 0; }
+  .trace-report table .text-xs { font-size: 6.5pt; }
   .trace-report, .trace-report * { color: #000 !important; background: #fff !important; border-color: #000 !important; box-shadow: none !important; }
   .trace-report a { text-decoration: none; }
   .trace-report .panel { border-radius: 0; }
