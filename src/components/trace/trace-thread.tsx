@@ -67,12 +67,12 @@ export function TraceThread({ entries, findings, variant = "screen" }: Props) {
             <table className="w-full min-w-[76em] table-fixed border-collapse text-sm">
               <colgroup>
                 <col className="w-[4em]" />
-                <col className="w-[15%]" />
-                <col className="w-[7.5em]" />
+                <col className="w-[13%]" />
+                <col className="w-[8.5em]" />
                 <col className="w-[9%]" />
-                <col className="w-[13em]" />
+                <col className="w-[15.5em]" />
                 <col className="w-[10%]" />
-                <col className="w-[9%]" />
+                <col className="w-[8%]" />
                 <col />
                 <col className={variant === "print" ? "w-[10em]" : "w-[8em]"} />
               </colgroup>
