@@ -5,6 +5,7 @@ import { formatFlightTime } from "@/domain/flight-time";
 import type { FittedUnit, MapPosition, PositionState } from "@/lib/position-types";
 import { db, type Trx } from "./db";
 import { AppError, notFound } from "./errors";
+import { countFindings } from "./trace";
 
 export interface AircraftSummary {
   id: number;
@@ -159,16 +160,21 @@ export async function getPositionMap(
     eligibleBy.set(row.position_id, list);
   }
   const host = { minutes: aircraft.totalMinutes, cycles: aircraft.cycles };
+  // Continuity findings of every fitted unit, read for the whole aircraft at once.
+  const findingsOf = await countFindings(rows.filter((row) => row.part_id).map((row) => Number(row.part_id)), trx);
 
   const positions = rows.map((row): MapPosition => {
     const fitted = row.part_id ? fittedUnit(row, host, now) : null;
+    const findings = row.part_id ? (findingsOf.get(Number(row.part_id)) ?? 0) : 0;
     const state: PositionState = !fitted
       ? "empty"
       : fitted.life.status === "exceeded"
         ? "past_limit"
-        : fitted.life.status === "near"
-          ? "near_limit"
-          : "fitted";
+        : findings > 0
+          ? "finding"
+          : fitted.life.status === "near"
+            ? "near_limit"
+            : "fitted";
     return {
       id: row.id,
       code: row.code,
@@ -183,7 +189,7 @@ export async function getPositionMap(
       eligible: eligibleBy.get(row.id) ?? [],
       fitted,
       state,
-      findings: 0,
+      findings,
     };
   });
   return { aircraft, positions };

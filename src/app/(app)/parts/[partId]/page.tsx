@@ -4,10 +4,13 @@ import { notFound } from "next/navigation";
 import { DocumentList } from "@/components/documents/document-list";
 import { ThreadTable } from "@/components/parts/thread-table";
 import { PartStatusBadge } from "@/components/status/part-status";
+import { FindingsList } from "@/components/trace/findings-list";
 import { formatCycles, formatInstant } from "@/lib/format";
+import { mayUse } from "@/lib/roles";
 import { AppError } from "@/server/errors";
 import { requireUserFor } from "@/server/page-guard";
 import { getPartDetail } from "@/server/parts";
+import { getPartFindings } from "@/server/trace";
 
 type Params = { params: Promise<{ partId: string }> };
 
@@ -18,12 +21,12 @@ const LIFE_GLYPHS = { ok: "✓", near: "◐", exceeded: "■" } as const;
 
 export default async function PartPage({ params }: Params) {
   const { partId } = await params;
-  await requireUserFor("parts", `/parts/${partId}`);
+  const user = await requireUserFor("parts", `/parts/${partId}`);
   const id = Number(partId);
   if (!Number.isSafeInteger(id) || id <= 0) notFound();
-  let part;
+  let part, findings;
   try {
-    part = await getPartDetail(id);
+    [part, findings] = await Promise.all([getPartDetail(id), getPartFindings(id)]);
   } catch (error) {
     if (error instanceof AppError && error.kind === "not_found") notFound();
     throw error;
@@ -111,6 +114,8 @@ export default async function PartPage({ params }: Params) {
           )}
         </div>
       </section>
+
+      <FindingsList findings={findings} hrefFor={mayUse(user.role, "trace") ? (seq) => `/trace/${id}#seq-${seq}` : null} />
 
       <section aria-labelledby="documents-heading" className="panel p-4">
         <h2 id="documents-heading" className="mb-2 text-lg font-semibold">

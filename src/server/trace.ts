@@ -1,0 +1,423 @@
+import "server-only";
+import { findContinuityIssues, type Finding, type FindingKind, type ThreadFacts } from "@/domain/continuity";
+import { DomainInputError } from "@/domain/errors";
+import { formatFlightTime } from "@/domain/flight-time";
+import type { LedgerKind, PartStatus } from "@/domain/ledger-types";
+import { db, type Trx } from "./db";
+import { notFound } from "./errors";
+import { rowToEntry } from "./ledger";
+
+// The auditor's trace: one serial's thread straight from the ledger, with the continuity findings
+// computed on it. The facts the check needs (entries, certificates, eligibility with alternates,
+// aircraft types) are read for many units at once, so the position map can count findings for a
+// whole aircraft in a handful of queries rather than one set per unit.
+
+export interface TraceDocument {
+  id: number;
+  kind: string;
+  formType: string | null;
+  trackingNumber: string | null;
+  statusWork: string | null;
+  issuerName: string | null;
+  issuerApproval: string | null;
+  sha256: string;
+}
+
+export interface TraceSigner {
+  name: string;
+  licenceNumber: string | null;
+}
+
+export interface TraceChange {
+  field: string;
+  from: string | null;
+  to: string | null;
+}
+
+export interface TraceEntry {
+  seq: number;
+  kind: LedgerKind;
+  occurredAt: string;
+  recordedAt: string;
+  registration: string | null;
+  positionCode: string | null;
+  positionLabel: string | null;
+  aircraftHours: string | null;
+  aircraftCycles: number | null;
+  tsn: string | null;
+  csn: number | null;
+  tso: string | null;
+  cso: number | null;
+  removalType: string | null;
+  reason: string | null;
+  workOrder: string | null;
+  taskReference: string | null;
+  testResult: string | null;
+  details: Record<string, string> | null;
+  signedBy: TraceSigner;
+  /** The independent inspector who countersigned the swap this entry belongs to, if any. */
+  inspectedBy: TraceSigner | null;
+  document: TraceDocument | null;
+  /** On a correction: the entry it corrects, and what it changed there. */
+  correctsSeq: number | null;
+  changes: TraceChange[];
+  /** On a corrected entry: the corrections that restate it, oldest first. */
+  correctedBy: number[];
+  prevHash: string;
+  hash: string;
+}
+
+export interface TracePart {
+  id: number;
+  partNumber: string;
+  serialNumber: string;
+  cage: string;
+  description: string;
+  ataChapter: string;
+  status: PartStatus;
+  manufacturedOn: string | null;
+}
+
+export interface TraceFinding {
+  kind: FindingKind;
+  message: string;
+  seq: number;
+  relatedSeqs: number[];
+}
+
+export interface PartTrace {
+  part: TracePart;
+  entries: TraceEntry[];
+  findings: TraceFinding[];
+}
+
+export interface SerialMatch {
+  id: number;
+  partNumber: string;
+  serialNumber: string;
+  cage: string;
+  description: string;
+  status: PartStatus;
+  entries: number;
+}
+
+const num = (value: unknown) => (value === null || value === undefined ? null : Number(value));
+const minutes = (value: unknown) => (value === null || value === undefined ? null : formatFlightTime(Number(value)));
+
+/** Units with exactly this serial (and P/N and CAGE when given). Several matches are all returned: the caller chooses. */
+export async function findSerials(query: { serial: string; partNumber?: string | null; cage?: string | null }, trx: Trx = db()): Promise<SerialMatch[]> {
+  const q = trx("parts as pt")
+    .join("part_numbers as pn", "pn.id", "pt.part_number_id")
+    .where("pt.serial_number", query.serial.trim().toUpperCase())
+    .orderBy(["pn.part_number", "pn.cage"])
+    .limit(50)
+    .select("pt.id", "pt.serial_number", "pt.status", "pn.part_number", "pn.cage", "pn.description")
+    .select(trx.raw("(select count(*) from ledger_entries le where le.part_id = pt.id) as entry_count"));
+  if (query.partNumber) q.andWhere("pn.part_number", query.partNumber.trim().toUpperCase());
+  if (query.cage) q.andWhere("pn.cage", query.cage.trim().toUpperCase());
+  const rows = await q;
+  return rows.map((row) => ({
+    id: row.id,
+    partNumber: row.part_number,
+    serialNumber: row.serial_number,
+    cage: row.cage,
+    description: row.description,
+    status: row.status,
+    entries: Number(row.entry_count),
+  }));
+}
+
+/** Serials that start with the text, for "did you mean" when nothing matches exactly. */
+export async function suggestSerials(serialStart: string, trx: Trx = db()): Promise<SerialMatch[]> {
+  const prefix = serialStart.trim().toUpperCase().replace(/[%_\\]/g, (c) => `\\${c}`) + "%";
+  const rows = await trx("parts as pt")
+    .join("part_numbers as pn", "pn.id", "pt.part_number_id")
+    .where("pt.serial_number", "like", prefix)
+    .orderBy("pt.serial_number")
+    .limit(10)
+    .select("pt.id", "pt.serial_number", "pt.status", "pn.part_number", "pn.cage", "pn.description");
+  return rows.map((row) => ({ id: row.id, partNumber: row.part_number, serialNumber: row.serial_number, cage: row.cage, description: row.description, status: row.status, entries: 0 }));
+}
+
+// ---------------------------------------------------------------------------------------
+// Continuity facts for many units at once
+
+type EntryRow = Record<string, any>;
+
+interface LoadedThreads {
+  facts: Map<number, ThreadFacts>;
+  rows: Map<number, EntryRow[]>;
+  parts: Map<number, EntryRow>;
+}
+
+/**
+ * Reads everything the continuity check needs for the given units: their entries (one query),
+ * their part numbers and limits, the positions each part number may occupy (alternates as the
+ * swap checks allow them), every aircraft's type, and the release certificates their entries cite.
+ */
+async function loadThreads(partIds: number[], trx: Trx, withDisplay: boolean): Promise<LoadedThreads> {
+  const facts = new Map<number, ThreadFacts>();
+  const rowsByPart = new Map<number, EntryRow[]>();
+  const partRows = new Map<number, EntryRow>();
+  if (partIds.length === 0) return { facts, rows: rowsByPart, parts: partRows };
+
+  const entryQuery = trx("ledger_entries as e")
+    .leftJoin("documents as d", "d.id", "e.document_id")
+    .whereIn("e.part_id", partIds)
+    .orderBy("e.seq")
+    .select("e.*", "d.kind as document_kind");
+  if (withDisplay) {
+    entryQuery
+      .leftJoin("aircraft as a", "a.id", "e.aircraft_id")
+      .leftJoin("positions as p", "p.id", "e.position_id")
+      .leftJoin("users as us", "us.id", "e.recorded_by")
+      .select(
+        "a.registration",
+        "p.code as position_code",
+        "p.label as position_label",
+        "us.name as signer_name",
+        "us.licence_number as signer_licence",
+        "d.form_type as document_form_type",
+        "d.tracking_number as document_tracking_number",
+        "d.status_work as document_status_work",
+        "d.issuer_name as document_issuer_name",
+        "d.issuer_approval as document_issuer_approval",
+        "d.sha256 as document_sha256",
+      );
+  }
+  const [parts, entryRows, aircraft, positions] = await Promise.all([
+    trx("parts as pt")
+      .join("part_numbers as pn", "pn.id", "pt.part_number_id")
+      .whereIn("pt.id", partIds)
+      .select("pt.id", "pt.serial_number", "pt.status", "pt.manufactured_on", "pn.id as pn_id", "pn.part_number", "pn.cage", "pn.description", "pn.ata_chapter", "pn.life_limit_minutes", "pn.life_limit_cycles", "pn.life_limit_days"),
+    entryQuery,
+    trx("aircraft").select("id", "aircraft_type_id", "registration"),
+    trx("positions as p")
+      .whereIn("p.id", trx("ledger_entries").whereIn("part_id", partIds).whereNotNull("position_id").distinct("position_id"))
+      .select("p.id", "p.code"),
+  ]);
+  const pnIds = [...new Set(parts.map((p) => Number(p.pn_id)))];
+  const eligibility = await eligiblePositions(pnIds, trx);
+
+  for (const row of entryRows) {
+    const list = rowsByPart.get(Number(row.part_id)) ?? [];
+    list.push(row);
+    rowsByPart.set(Number(row.part_id), list);
+  }
+  const aircraftFacts = aircraft.map((a) => ({ id: a.id, typeId: a.aircraft_type_id, registration: a.registration }));
+  const positionFacts = positions.map((p) => ({ id: p.id, code: p.code }));
+  for (const part of parts) {
+    partRows.set(part.id, part);
+    const rows = rowsByPart.get(part.id) ?? [];
+    const entries = rows.map((row) => rowToEntry(row));
+    facts.set(part.id, {
+      part: {
+        id: part.id,
+        partNumberId: Number(part.pn_id),
+        partNumber: part.part_number,
+        serialNumber: part.serial_number,
+        limits: { minutes: num(part.life_limit_minutes), cycles: num(part.life_limit_cycles), days: num(part.life_limit_days) },
+        manufacturedOn: part.manufactured_on ? new Date(part.manufactured_on).toISOString().slice(0, 10) : null,
+      },
+      entries,
+      // A release certificate cited by an entry is on file from that entry on.
+      certificates: rows
+        .filter((row) => row.document_id !== null && row.document_kind === "release_certificate" && row.kind !== "corrected")
+        .map((row) => ({ documentId: Number(row.document_id), partId: part.id, receivedSeq: Number(row.seq) })),
+      eligibility: (eligibility.get(Number(part.pn_id)) ?? []).map((e) => ({ partNumber: part.part_number, aircraftTypeId: e.aircraftTypeId, positionId: e.positionId })),
+      aircraft: aircraftFacts,
+      positions: positionFacts,
+    });
+  }
+  return { facts, rows: rowsByPart, parts: partRows };
+}
+
+/**
+ * Positions each part number may occupy: listed itself, or listed P/N that it is an approved
+ * alternate of (one-way: the alternate replaces the listed P/N; two-way also the reverse),
+ * exactly as src/server/swap-checks.ts judges an installation.
+ */
+async function eligiblePositions(pnIds: number[], trx: Trx): Promise<Map<number, Array<{ positionId: number; aircraftTypeId: number }>>> {
+  const out = new Map<number, Array<{ positionId: number; aircraftTypeId: number }>>();
+  if (pnIds.length === 0) return out;
+  const marks = pnIds.map(() => "?").join(",");
+  const [rows] = await trx.raw(
+    `SELECT pe.part_number_id AS pn_id, pe.position_id, p.aircraft_type_id
+       FROM position_eligibility pe JOIN positions p ON p.id = pe.position_id
+      WHERE pe.part_number_id IN (${marks})
+     UNION
+     SELECT pi.alternate_part_number_id, pe.position_id, p.aircraft_type_id
+       FROM position_eligibility pe JOIN positions p ON p.id = pe.position_id
+       JOIN part_interchange pi ON pi.part_number_id = pe.part_number_id
+      WHERE pi.alternate_part_number_id IN (${marks})
+     UNION
+     SELECT pi.part_number_id, pe.position_id, p.aircraft_type_id
+       FROM position_eligibility pe JOIN positions p ON p.id = pe.position_id
+       JOIN part_interchange pi ON pi.alternate_part_number_id = pe.part_number_id AND pi.two_way = 1
+      WHERE pi.part_number_id IN (${marks})`,
+    [...pnIds, ...pnIds, ...pnIds],
+  );
+  for (const row of rows as Array<Record<string, number>>) {
+    const list = out.get(Number(row.pn_id)) ?? [];
+    list.push({ positionId: Number(row.position_id), aircraftTypeId: Number(row.aircraft_type_id) });
+    out.set(Number(row.pn_id), list);
+  }
+  return out;
+}
+
+function toFindings(findings: Finding[]): TraceFinding[] {
+  return findings.map((f) => ({ kind: f.kind, message: f.message, seq: f.seq, relatedSeqs: f.relatedSeqs }));
+}
+
+/** The check's findings; a thread it cannot replay is itself a finding an auditor must see, not a 500. */
+function checkThread(facts: ThreadFacts): TraceFinding[] {
+  try {
+    return toFindings(findContinuityIssues(facts));
+  } catch (error) {
+    if (!(error instanceof DomainInputError)) throw error;
+    return [{ kind: "gap", message: `The thread cannot be checked as recorded: ${error.message}`, seq: facts.entries[0]?.seq ?? 0, relatedSeqs: [] }];
+  }
+}
+
+/**
+ * Findings per unit, for the given units (for example every unit fitted on one aircraft): every
+ * kind of finding, not only the cheap ones, since the facts for a whole aircraft come in one read.
+ */
+export async function countFindings(partIds: number[], trx: Trx = db()): Promise<Map<number, number>> {
+  const { facts } = await loadThreads(partIds, trx, false);
+  const counts = new Map<number, number>();
+  for (const [partId, threadFacts] of facts) counts.set(partId, checkThread(threadFacts).length);
+  return counts;
+}
+
+/** The findings of one unit's thread. */
+export async function getPartFindings(partId: number, trx: Trx = db()): Promise<TraceFinding[]> {
+  const { facts } = await loadThreads([partId], trx, false);
+  const threadFacts = facts.get(partId);
+  if (!threadFacts) throw notFound(`Part ${partId}`);
+  return checkThread(threadFacts);
+}
+
+// ---------------------------------------------------------------------------------------
+// The thread as the trace shows it
+
+const CHANGE_FIELDS: Array<[string, (row: EntryRow) => string | null]> = [
+  ["aircraft", (r) => r.registration ?? null],
+  ["position", (r) => r.position_code ?? null],
+  ["occurred at", (r) => (r.occurred_at ? new Date(r.occurred_at).toISOString() : null)],
+  ["aircraft hours", (r) => minutes(r.aircraft_minutes)],
+  ["aircraft cycles", (r) => (r.aircraft_cycles === null ? null : String(r.aircraft_cycles))],
+  ["TSN", (r) => minutes(r.tsn_minutes)],
+  ["CSN", (r) => (r.csn === null ? null : String(r.csn))],
+  ["TSO", (r) => minutes(r.tso_minutes)],
+  ["CSO", (r) => (r.cso === null ? null : String(r.cso))],
+  ["removal type", (r) => r.removal_type ?? null],
+  ["work order", (r) => r.work_order ?? null],
+  ["task reference", (r) => r.task_reference ?? null],
+  ["test result", (r) => r.test_result ?? null],
+  ["document", (r) => (r.document_id === null ? null : String(r.document_id))],
+];
+
+/** One unit's whole thread, every entry in seq order from its first receipt, with its findings. */
+export async function getPartTrace(partId: number, trx: Trx = db()): Promise<PartTrace> {
+  const { facts, rows, parts } = await loadThreads([partId], trx, true);
+  const threadFacts = facts.get(partId);
+  if (!threadFacts) throw notFound(`Part ${partId}`);
+  const entryRows = rows.get(partId) ?? [];
+
+  const swapSigners = entryRows.length
+    ? await trx("swaps as s")
+        .join("users as u", "u.id", "s.inspected_by")
+        .whereIn("s.removed_seq", entryRows.map((r) => r.seq))
+        .orWhereIn("s.installed_seq", entryRows.map((r) => r.seq))
+        .select("s.removed_seq", "s.installed_seq", "u.name", "u.licence_number")
+    : [];
+  const inspectorOf = new Map<number, TraceSigner>();
+  for (const s of swapSigners) {
+    const signer = { name: s.name, licenceNumber: s.licence_number ?? null };
+    if (s.removed_seq !== null) inspectorOf.set(Number(s.removed_seq), signer);
+    if (s.installed_seq !== null) inspectorOf.set(Number(s.installed_seq), signer);
+  }
+
+  // The values each entry stands at (after earlier corrections), so a correction shows what it changed.
+  const current = new Map<number, EntryRow>();
+  const rootOf = new Map<number, number>();
+  const correctedBy = new Map<number, number[]>();
+  const entries: TraceEntry[] = entryRows.map((row) => {
+    const seq = Number(row.seq);
+    let changes: TraceChange[] = [];
+    if (row.kind === "corrected" && row.corrects_seq !== null) {
+      const named = Number(row.corrects_seq);
+      const root = rootOf.get(named) ?? named;
+      rootOf.set(seq, root);
+      const before = current.get(root);
+      if (before) {
+        changes = CHANGE_FIELDS.map(([field, read]) => ({ field, from: read(before), to: read(row) })).filter((c) => c.from !== c.to);
+        current.set(root, row);
+      }
+      correctedBy.set(root, [...(correctedBy.get(root) ?? []), seq]);
+    } else {
+      current.set(seq, row);
+    }
+    return {
+      seq,
+      kind: row.kind,
+      occurredAt: new Date(row.occurred_at).toISOString(),
+      recordedAt: new Date(row.recorded_at).toISOString(),
+      registration: row.registration ?? null,
+      positionCode: row.position_code ?? null,
+      positionLabel: row.position_label ?? null,
+      aircraftHours: minutes(row.aircraft_minutes),
+      aircraftCycles: num(row.aircraft_cycles),
+      tsn: minutes(row.tsn_minutes),
+      csn: num(row.csn),
+      tso: minutes(row.tso_minutes),
+      cso: num(row.cso),
+      removalType: row.removal_type ?? null,
+      reason: row.reason ?? null,
+      workOrder: row.work_order ?? null,
+      taskReference: row.task_reference ?? null,
+      testResult: row.test_result ?? null,
+      details: row.details ? JSON.parse(row.details) : null,
+      signedBy: { name: row.signer_name ?? row.recorded_by, licenceNumber: row.signer_licence ?? null },
+      inspectedBy: inspectorOf.get(seq) ?? null,
+      document:
+        row.document_id === null
+          ? null
+          : {
+              id: Number(row.document_id),
+              kind: row.document_kind,
+              formType: row.document_form_type ?? null,
+              trackingNumber: row.document_tracking_number ?? null,
+              statusWork: row.document_status_work ?? null,
+              issuerName: row.document_issuer_name ?? null,
+              issuerApproval: row.document_issuer_approval ?? null,
+              sha256: row.document_sha256,
+            },
+      correctsSeq: num(row.corrects_seq),
+      changes,
+      correctedBy: [],
+      prevHash: row.prev_hash,
+      hash: row.hash,
+    };
+  });
+  for (const entry of entries) entry.correctedBy = correctedBy.get(entry.seq) ?? [];
+
+  const findings = checkThread(threadFacts);
+  const part = threadFacts.part;
+  const partRow = parts.get(partId)!;
+  return {
+    part: {
+      id: part.id,
+      partNumber: part.partNumber,
+      serialNumber: part.serialNumber,
+      cage: partRow.cage,
+      description: partRow.description,
+      ataChapter: partRow.ata_chapter,
+      status: partRow.status,
+      manufacturedOn: part.manufacturedOn ?? null,
+    },
+    entries,
+    findings,
+  };
+}
