@@ -23,6 +23,12 @@ const FULL_CHECK_INTERVAL_MS = 10 * 60_000;
 
 const globalForAlerts = globalThis as unknown as { threadlineAlertCheck?: { closedThrough: string; at: number } };
 
+/** Which part numbers to check: by id, by the units just removed, or (neither) every one with a recent unscheduled removal. */
+export interface AlertCheckScope {
+  partNumberIds?: number[];
+  partIds?: number[];
+}
+
 export interface AlertRaised {
   partNumber: string;
   month: string;
@@ -31,30 +37,37 @@ export interface AlertRaised {
 }
 
 /**
- * Checks the closed months of the lookback window and mails the alerts not yet sent. With
- * `partNumberIds` only those part numbers' groups are checked (after a removal); without, every part
- * number with an unscheduled removal in the window.
+ * Checks the closed months of the lookback window and mails the alerts not yet sent. With a scope,
+ * only those part numbers' groups are checked (after a removal); without, every part number with an
+ * unscheduled removal in the window.
  */
-export async function checkClosedMonthAlerts(now: Date = new Date(), options: { partNumberIds?: number[] } = {}): Promise<AlertRaised[]> {
+export async function checkClosedMonthAlerts(now: Date = new Date(), options: AlertCheckScope = {}): Promise<AlertRaised[]> {
   const nowMs = now.getTime();
   const periodEnd = monthStart(nowMs);
   const periodStart = monthStart(nowMs, -LOOKBACK_MONTHS);
   const closedThrough = monthOf(periodEnd - 1);
   const memo = globalForAlerts.threadlineAlertCheck;
-  if (!options.partNumberIds) {
+  if (!options.partNumberIds && !options.partIds) {
     if (memo && memo.closedThrough === closedThrough && nowMs - memo.at < FULL_CHECK_INTERVAL_MS) return [];
     globalForAlerts.threadlineAlertCheck = { closedThrough, at: nowMs };
   }
 
-  const candidateQuery = db()("ledger_entries as r")
-    .join("parts as p", "p.id", "r.part_id")
-    .where("r.kind", "removed")
-    .andWhere("r.removal_type", "unscheduled")
-    .andWhere("r.occurred_at", ">=", new Date(periodStart))
-    .andWhere("r.occurred_at", "<", new Date(periodEnd))
-    .distinct("p.part_number_id");
-  if (options.partNumberIds) candidateQuery.whereIn("p.part_number_id", options.partNumberIds);
-  const candidates = (await candidateQuery.pluck("p.part_number_id")).map(Number);
+  // After a removal the removed unit's part number is checked whatever happened in the window: its
+  // closed months may not have been checked yet in this process.
+  const candidates = options.partIds
+    ? (await db()("parts").whereIn("id", options.partIds).distinct("part_number_id").pluck("part_number_id")).map(Number)
+    : options.partNumberIds
+      ? options.partNumberIds
+      : (
+          await db()("ledger_entries as r")
+            .join("parts as p", "p.id", "r.part_id")
+            .where("r.kind", "removed")
+            .andWhere("r.removal_type", "unscheduled")
+            .andWhere("r.occurred_at", ">=", new Date(periodStart))
+            .andWhere("r.occurred_at", "<", new Date(periodEnd))
+            .distinct("p.part_number_id")
+            .pluck("p.part_number_id")
+        ).map(Number);
   if (candidates.length === 0) return [];
 
   // Alternates share one group: a two-way pair is checked (and mailed) once, under the lowest part
@@ -151,6 +164,6 @@ async function recordAlert(alert: {
 }
 
 /** For hooks that must not fail the request that triggered them (a recorded removal). */
-export function checkClosedMonthAlertsLater(now: Date = new Date(), options: { partNumberIds?: number[] } = {}): void {
+export function checkClosedMonthAlertsLater(now: Date = new Date(), options: AlertCheckScope = {}): void {
   setImmediate(() => void checkClosedMonthAlerts(now, options).catch((error) => console.error("reliability alert check", error)));
 }

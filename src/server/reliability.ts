@@ -288,3 +288,29 @@ export async function getWeibull(query: WeibullQuery, now = new Date()): Promise
     line: { start: { hours: plot.line.start.time, y: plot.line.start.y }, end: { hours: plot.line.end.time, y: plot.line.end.y } },
   };
 }
+
+/** What the Rates form offers, and the part numbers with the most unscheduled removals in the last 12 closed months. */
+export async function rateSubjectOptions(now = new Date()) {
+  const from = new Date(monthStart(now.getTime(), -12));
+  const to = new Date(monthStart(now.getTime()));
+  const [partNumbers, chapters, busiest] = await Promise.all([
+    db()("part_numbers").distinct("part_number").orderBy("part_number").pluck("part_number"),
+    db()("positions").distinct("ata_chapter").orderBy("ata_chapter").pluck("ata_chapter"),
+    db()("ledger_entries as r")
+      .join("parts as p", "p.id", "r.part_id")
+      .join("part_numbers as pn", "pn.id", "p.part_number_id")
+      .where({ "r.kind": "removed", "r.removal_type": "unscheduled" })
+      .andWhere("r.occurred_at", ">=", from)
+      .andWhere("r.occurred_at", "<", to)
+      .groupBy("pn.part_number", "pn.description")
+      .orderBy([{ column: "unscheduled", order: "desc" }, { column: "pn.part_number" }])
+      .limit(8)
+      .select("pn.part_number", "pn.description", db().raw("COUNT(*) AS unscheduled")),
+  ]);
+  const chapterList = [...new Set((chapters as string[]).flatMap((c) => [c.slice(0, 2), c]))].sort();
+  return {
+    partNumbers: partNumbers as string[],
+    chapters: chapterList,
+    busiest: busiest.map((b: { part_number: string; description: string; unscheduled: number }) => ({ partNumber: b.part_number, description: b.description, unscheduled: Number(b.unscheduled) })),
+  };
+}

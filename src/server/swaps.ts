@@ -9,6 +9,7 @@ import { AppError } from "./errors";
 import { appendLedgerEntries, type AppendedEntry } from "./ledger";
 import { assertLicenceValid } from "./licences";
 import { kickOutbox, queueMail } from "./mail";
+import { checkClosedMonthAlertsLater } from "./reliability-alerts";
 import type { SwapCheck } from "@/lib/swap-types";
 import { firstFailure, planSwap } from "./swap-checks";
 
@@ -74,6 +75,7 @@ export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; ide
     try {
       const result = await db().transaction((trx) => writeSwap(trx, input, digest, now));
       kickOutbox();
+      if (result.body.swap.removed && input.swap.removalType === "unscheduled") checkClosedMonthAlertsLater(now, { partIds: [result.body.swap.removed.partId] });
       return result;
     } catch (error) {
       const code = (error as { code?: string }).code;
