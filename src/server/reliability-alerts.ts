@@ -27,6 +27,7 @@ const globalForAlerts = globalThis as unknown as { threadlineAlertCheck?: { clos
 export interface AlertCheckScope {
   partNumberIds?: number[];
   partIds?: number[];
+  partNumbers?: string[];
 }
 
 export interface AlertRaised {
@@ -47,27 +48,13 @@ export async function checkClosedMonthAlerts(now: Date = new Date(), options: Al
   const periodStart = monthStart(nowMs, -LOOKBACK_MONTHS);
   const closedThrough = monthOf(periodEnd - 1);
   const memo = globalForAlerts.threadlineAlertCheck;
-  if (!options.partNumberIds && !options.partIds) {
+  const scoped = Boolean(options.partNumberIds || options.partIds || options.partNumbers);
+  if (!scoped) {
     if (memo && memo.closedThrough === closedThrough && nowMs - memo.at < FULL_CHECK_INTERVAL_MS) return [];
     globalForAlerts.threadlineAlertCheck = { closedThrough, at: nowMs };
   }
 
-  // After a removal the removed unit's part number is checked whatever happened in the window: its
-  // closed months may not have been checked yet in this process.
-  const candidates = options.partIds
-    ? (await db()("parts").whereIn("id", options.partIds).distinct("part_number_id").pluck("part_number_id")).map(Number)
-    : options.partNumberIds
-      ? options.partNumberIds
-      : (
-          await db()("ledger_entries as r")
-            .join("parts as p", "p.id", "r.part_id")
-            .where("r.kind", "removed")
-            .andWhere("r.removal_type", "unscheduled")
-            .andWhere("r.occurred_at", ">=", new Date(periodStart))
-            .andWhere("r.occurred_at", "<", new Date(periodEnd))
-            .distinct("p.part_number_id")
-            .pluck("p.part_number_id")
-        ).map(Number);
+  const candidates = await candidatePartNumberIds(options, periodStart, periodEnd);
   if (candidates.length === 0) return [];
 
   // Alternates share one group: a two-way pair is checked (and mailed) once, under the lowest part
@@ -113,6 +100,26 @@ export async function checkClosedMonthAlerts(now: Date = new Date(), options: Al
   }
   if (raised.length) kickOutbox();
   return raised;
+}
+
+/**
+ * The part numbers to check. A scoped check takes its part numbers whatever happened in the window
+ * (after a removal, the removed unit's closed months may not have been checked yet in this process);
+ * a full check takes every part number with an unscheduled removal in the window.
+ */
+async function candidatePartNumberIds(scope: AlertCheckScope, periodStart: number, periodEnd: number): Promise<number[]> {
+  if (scope.partIds) return (await db()("parts").whereIn("id", scope.partIds).distinct("part_number_id").pluck("part_number_id")).map(Number);
+  if (scope.partNumbers) return (await db()("part_numbers").whereIn("part_number", scope.partNumbers).pluck("id")).map(Number);
+  if (scope.partNumberIds) return scope.partNumberIds;
+  const ids = await db()("ledger_entries as r")
+    .join("parts as p", "p.id", "r.part_id")
+    .where("r.kind", "removed")
+    .andWhere("r.removal_type", "unscheduled")
+    .andWhere("r.occurred_at", ">=", new Date(periodStart))
+    .andWhere("r.occurred_at", "<", new Date(periodEnd))
+    .distinct("p.part_number_id")
+    .pluck("p.part_number_id");
+  return ids.map(Number);
 }
 
 async function recordAlert(alert: {

@@ -136,7 +136,7 @@ export function RemovalFilters({
           Removal type
         </label>
         <select id="removals-removal-type" className="field-input" value={draft.removalType ?? ""} onChange={set("removalType")} {...described("removalType")}>
-          <option value="">Scheduled and unscheduled</option>
+          <option value="">Both types</option>
           <option value="unscheduled">Unscheduled only</option>
           <option value="scheduled">Scheduled only</option>
         </select>
