@@ -65,16 +65,26 @@ function connection(): Promise<PoolConnection> {
   return new Promise((resolve, reject) => pool().pool.getConnection((error, conn) => (error ? reject(error) : resolve(conn))));
 }
 
-/**
- * The export as a web stream of UTF-8 bytes. The connection is taken when the stream starts and
- * given back when it ends; if the client goes away mid-export the connection is destroyed, which
- * stops the query on the server instead of reading the rest into a paused buffer.
- */
-export async function streamRemovalsCsv(filters: RemovalFilters): Promise<ReadableStream<Uint8Array>> {
+/** The removals export (contract header, ledger order) as a web stream of UTF-8 bytes. */
+export function streamRemovalsCsv(filters: RemovalFilters): Promise<ReadableStream<Uint8Array>> {
   const { sql, params } = removalsExportSql(filters);
+  return streamQueryAsCsv({ sql, params, header: [...REMOVALS_CSV_HEADER], toValues: csvValues });
+}
+
+/**
+ * Any query as CSV, streamed. The connection is taken when the stream starts and given back when it
+ * ends; if the client goes away mid-export the connection is destroyed, which stops the query on the
+ * server instead of reading the rest into a paused buffer.
+ */
+export async function streamQueryAsCsv(input: {
+  sql: string;
+  params: unknown[];
+  header: string[];
+  toValues: (row: RemovalDbRow) => unknown[];
+}): Promise<ReadableStream<Uint8Array>> {
   const conn = await connection();
   const encoder = new TextEncoder();
-  const rowStream = conn.query({ sql, values: params }).stream({ highWaterMark: CSV_CHUNK_ROWS });
+  const rowStream = conn.query({ sql: input.sql, values: input.params }).stream({ highWaterMark: CSV_CHUNK_ROWS });
   let buffer: unknown[][] = [];
   let finished = false;
 
@@ -88,9 +98,9 @@ export async function streamRemovalsCsv(filters: RemovalFilters): Promise<Readab
   return new ReadableStream<Uint8Array>(
     {
       start(controller) {
-        controller.enqueue(encoder.encode(`${Papa.unparse([REMOVALS_CSV_HEADER as unknown as string[]], UNPARSE_OPTIONS)}\r\n`));
+        controller.enqueue(encoder.encode(`${Papa.unparse([input.header], UNPARSE_OPTIONS)}\r\n`));
         rowStream.on("data", (row: RemovalDbRow) => {
-          buffer.push(csvValues(row));
+          buffer.push(input.toValues(row));
           if (buffer.length >= CSV_CHUNK_ROWS) {
             controller.enqueue(encoder.encode(csvChunk(buffer)));
             buffer = [];
@@ -106,7 +116,7 @@ export async function streamRemovalsCsv(filters: RemovalFilters): Promise<Readab
           finish(true);
         });
         rowStream.on("error", (error) => {
-          console.error("removals export failed", error);
+          console.error("CSV export failed", error);
           finish(false);
           // The header is already sent, so the status cannot change: end the body with an error.
           controller.error(error);
@@ -121,7 +131,7 @@ export async function streamRemovalsCsv(filters: RemovalFilters): Promise<Readab
         rowStream.destroy();
       },
     },
-    // Queue up to two chunks' worth of bytes before pausing the query (a chunk is roughly 0.5 to 1 MB).
+    // Queue up to about two chunks' worth of bytes before pausing the query (a chunk is roughly 0.5 to 1 MB).
     new ByteLengthQueuingStrategy({ highWaterMark: 2 * 1024 * 1024 }),
   );
 }

@@ -42,7 +42,7 @@ export function RemovalFilters({
     <form
       role="search"
       aria-label="Filter removals"
-      className="panel grid gap-3 p-3 sm:grid-cols-2 lg:grid-cols-4 xl:grid-cols-8"
+      className="panel grid gap-3 p-3 sm:grid-cols-2 lg:grid-cols-4"
       onSubmit={(event) => {
         event.preventDefault();
         const clean = Object.fromEntries(FIELDS.filter((f) => draft[f]).map((f) => [f, draft[f]!.trim()])) as RemovalFilterValues;
@@ -137,12 +137,12 @@ export function RemovalFilters({
         </label>
         <select id="removals-removal-type" className="field-input" value={draft.removalType ?? ""} onChange={set("removalType")} {...described("removalType")}>
           <option value="">Both types</option>
-          <option value="unscheduled">Unscheduled only</option>
-          <option value="scheduled">Scheduled only</option>
+          <option value="unscheduled">Unscheduled</option>
+          <option value="scheduled">Scheduled</option>
         </select>
         {error("removalType")}
       </div>
-      <div className="flex flex-wrap items-end gap-2 sm:col-span-2 lg:col-span-4 xl:col-span-8">
+      <div className="flex flex-wrap items-end gap-2 sm:col-span-2 lg:col-span-4">
         <button type="submit" className="btn btn-primary">
           Apply filters
         </button>

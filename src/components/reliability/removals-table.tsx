@@ -87,8 +87,8 @@ export function RemovalsTable({
                   {r.aircraftType} · {r.station}
                 </span>
               </td>
-              <td className="px-2 py-1.5">
-                <span className="num font-semibold">{r.positionCode}</span>
+              <td className="min-w-40 px-2 py-1.5">
+                <span className="num whitespace-nowrap font-semibold">{r.positionCode}</span>
                 <span className="block text-sm text-[var(--ink-soft)]">{r.positionLabel}</span>
               </td>
               <td className="num whitespace-nowrap px-2 py-1.5">{r.ataChapter}</td>

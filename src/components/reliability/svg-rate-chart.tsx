@@ -50,7 +50,9 @@ export function SvgRateChart({ points, title, yLabel }: RateChartProps) {
 
   return (
     <figure className="space-y-2">
-      <svg viewBox={`0 0 ${WIDTH} ${HEIGHT}`} role="img" aria-labelledby={titleId} className="h-auto w-full max-w-[1100px] text-[var(--ink)]">
+      {/* On a phone the chart keeps a readable size and scrolls sideways. */}
+      <div className="overflow-x-auto">
+      <svg viewBox={`0 0 ${WIDTH} ${HEIGHT}`} role="img" aria-labelledby={titleId} className="h-auto w-full min-w-[680px] max-w-[1100px] text-[var(--ink)]">
         <title id={titleId}>{title}</title>
         <defs>
           <pattern id="above-alert-hatch" patternUnits="userSpaceOnUse" width="8" height="8" patternTransform="rotate(45)">
@@ -126,6 +128,7 @@ export function SvgRateChart({ points, title, yLabel }: RateChartProps) {
           </text>
         ) : null}
       </svg>
+      </div>
       <figcaption className="flex flex-wrap gap-x-6 gap-y-1 text-sm">
         <span className="inline-flex items-center gap-2">
           <svg width="18" height="14" aria-hidden="true">

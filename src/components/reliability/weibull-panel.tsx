@@ -59,7 +59,7 @@ export function WeibullPanel({ partNumber, initialData }: { partNumber: string; 
         <p role="status">Fitting…</p>
       ) : (
         <div className="grid gap-4 lg:grid-cols-[minmax(0,720px)_1fr]">
-          <div>{data.fit ? <WeibullPlot answer={data} /> : <p className="panel p-3">{data.message}</p>}</div>
+          <div className="overflow-x-auto">{data.fit ? <WeibullPlot answer={data} /> : <p className="panel p-3">{data.message}</p>}</div>
           <dl className="grid h-fit grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-lg" aria-live="polite">
             <dt className="font-semibold">Failures</dt>
             <dd className="num">{data.failures}</dd>

@@ -42,7 +42,7 @@ export function WeibullPlot({ answer }: { answer: WeibullAnswer }) {
   const bottom = MARGIN.top + plotHeight;
 
   return (
-    <svg viewBox={`0 0 ${WIDTH} ${HEIGHT}`} role="img" aria-labelledby="weibull-plot-title" className="h-auto w-full max-w-[720px] text-[var(--ink)]">
+    <svg viewBox={`0 0 ${WIDTH} ${HEIGHT}`} role="img" aria-labelledby="weibull-plot-title" className="h-auto w-full min-w-[520px] max-w-[720px] text-[var(--ink)]">
       <title id="weibull-plot-title">{`Weibull probability plot of time on wing, ${answer.partNumber}: ${answer.failures} failures, ${answer.suspensions} suspensions`}</title>
       {visibleF.map((f) => (
         <g key={f}>
