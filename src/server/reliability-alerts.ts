@@ -18,6 +18,13 @@ import { computeReport, groupOf, loadInterchange, type Subject } from "./reliabi
 /** The programme's k for mailed alerts (the rates page may show other k values; they do not mail). */
 export const ALERT_K = 2;
 export const LOOKBACK_MONTHS = 3;
+/**
+ * A month is mailed only with at least this many unscheduled removals. Mean + k·SD of twelve quiet
+ * months is zero for a part that rarely comes off, so its first removal in a year would "cross" it:
+ * on the demo fleet that was 7 of 12 alerts. Threadline's own guard, not a published rule; the
+ * month is still marked above its level on the Rates page.
+ */
+export const ALERT_MIN_UNSCHEDULED = 2;
 /** A full check (every part number) is repeated at most this often per process; a targeted one always runs. */
 const FULL_CHECK_INTERVAL_MS = 10 * 60_000;
 
@@ -82,6 +89,7 @@ export async function checkClosedMonthAlerts(now: Date = new Date(), options: Al
     const report = await computeReport(subject, { from: periodStart, to: periodEnd }, now, ALERT_K);
     for (const month of report.months) {
       if (!month.closed || month.aboveAlert !== true || month.rate === null || month.alertLevel === null) continue;
+      if (month.unscheduledRemovals < ALERT_MIN_UNSCHEDULED) continue;
       const alternates = group.ids.filter((id) => id !== group.representative).map((id) => nameOf.get(id) ?? String(id));
       const sent = await recordAlert({
         partNumberId: group.representative,

@@ -115,6 +115,8 @@ describe("GET /api/reliability", () => {
     expect(unknown.status).toBe(404);
     expect(unknown.body.error.fields).toHaveProperty("partNumber");
     expect((await http().get("/api/reliability?partNumber=QF-3242-50").set("cookie", technician)).status).toBe(403);
+    expect((await http().get("/api/reliability/weibull?partNumber=QF-3242-50").set("cookie", technician)).status).toBe(403);
+    expect((await http().get("/rates?partNumber=QF-3242-50").set("cookie", technician)).status).toBe(403);
   });
 
   it("a higher k raises every alert level", async () => {
