@@ -42,11 +42,11 @@ export function RatesForm({
         <legend className="field-label">Analyse</legend>
         <div className="flex gap-3">
           <label className="inline-flex min-h-touch items-center gap-2">
-            <input type="radio" name="rates-mode" className="h-5 w-5" checked={mode === "partNumber"} onChange={() => setMode("partNumber")} />
+            <input type="radio" name="rates-mode" className="h-5 w-5 shrink-0" checked={mode === "partNumber"} onChange={() => setMode("partNumber")} />
             Part number
           </label>
           <label className="inline-flex min-h-touch items-center gap-2">
-            <input type="radio" name="rates-mode" className="h-5 w-5" checked={mode === "ataChapter"} onChange={() => setMode("ataChapter")} />
+            <input type="radio" name="rates-mode" className="h-5 w-5 shrink-0" checked={mode === "ataChapter"} onChange={() => setMode("ataChapter")} />
             ATA chapter
           </label>
         </div>

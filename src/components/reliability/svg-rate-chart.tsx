@@ -1,3 +1,6 @@
+"use client";
+
+import { useEffect, useRef } from "react";
 import type { RateChartProps } from "./rate-chart";
 
 const WIDTH = 960;
@@ -36,6 +39,11 @@ export function SvgRateChart({ points, title, yLabel }: RateChartProps) {
   const barWidth = Math.max(4, band * 0.62);
   const lastLevel = [...points].reverse().find((p) => p.alertLevel !== null);
   const titleId = "rate-chart-title";
+  const scroller = useRef<HTMLDivElement>(null);
+  // Where the chart is wider than the screen, start at the newest months: they are what is being watched.
+  useEffect(() => {
+    if (scroller.current) scroller.current.scrollLeft = scroller.current.scrollWidth;
+  }, [points.length]);
 
   // The alert level as steps: one horizontal segment per month, joined where consecutive months have one.
   let alertPath = "";
@@ -51,7 +59,7 @@ export function SvgRateChart({ points, title, yLabel }: RateChartProps) {
   return (
     <figure className="space-y-2">
       {/* On a phone the chart keeps a readable size and scrolls sideways. */}
-      <div className="overflow-x-auto">
+      <div ref={scroller} className="overflow-x-auto">
       <svg viewBox={`0 0 ${WIDTH} ${HEIGHT}`} role="img" aria-labelledby={titleId} className="h-auto w-full min-w-[680px] max-w-[1100px] text-[var(--ink)]">
         <title id={titleId}>{title}</title>
         <defs>

@@ -42,11 +42,11 @@ export function WeibullPanel({ partNumber, initialData }: { partNumber: string; 
       <fieldset className="flex flex-wrap gap-x-6 gap-y-2">
         <legend className="field-label">What counts</legend>
         <label className="inline-flex min-h-touch items-center gap-2">
-          <input type="checkbox" className="h-6 w-6" checked={confirmedOnly} onChange={(event) => setConfirmedOnly(event.target.checked)} />
+          <input type="checkbox" className="h-6 w-6 shrink-0" checked={confirmedOnly} onChange={(event) => setConfirmedOnly(event.target.checked)} />
           Only shop-confirmed failures are failures (other unscheduled removals become suspensions)
         </label>
         <label className="inline-flex min-h-touch items-center gap-2">
-          <input type="checkbox" className="h-6 w-6" checked={scheduledAsSuspensions} onChange={(event) => setScheduledAsSuspensions(event.target.checked)} />
+          <input type="checkbox" className="h-6 w-6 shrink-0" checked={scheduledAsSuspensions} onChange={(event) => setScheduledAsSuspensions(event.target.checked)} />
           Count scheduled removals as suspensions
         </label>
       </fieldset>
