@@ -86,6 +86,7 @@ const SAME_FIT = "ie.aircraft_id = r.aircraft_id AND ie.position_id = r.position
 /** The columns both the page and the export read. */
 export const REMOVALS_COLUMNS = `
   r.seq,
+  r.part_id,
   a.registration,
   t.code AS aircraft_type,
   st.code AS station,
@@ -143,6 +144,7 @@ export function toRemovalRow(row: RemovalDbRow): RemovalRow {
   const finding = row.shop_finding as string | null | undefined;
   return {
     seq: Number(row.seq),
+    partId: Number(row.part_id),
     registration: String(row.registration),
     aircraftType: String(row.aircraft_type),
     station: String(row.station),

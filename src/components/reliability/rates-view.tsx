@@ -1,6 +1,7 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
+import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { useEffect, useState } from "react";
 import { ApiError, searchString } from "@/lib/fetch-json";
@@ -67,6 +68,10 @@ export function RatesView({
               <h2 id="chart-heading" className="text-xl font-bold">
                 Monthly unscheduled removal rate against the alert level
               </h2>
+              <div className="flex flex-wrap gap-2">
+              <Link className="btn btn-secondary" href={`/removals${searchString({ partNumber: data.partNumber ?? undefined, ataChapter: data.ataChapter ?? undefined, from: data.from.slice(0, 10), to: lastDay(data.to) })}`}>
+                See the removals
+              </Link>
               <a
                 className="btn btn-secondary"
                 download
@@ -74,6 +79,7 @@ export function RatesView({
               >
                 <span aria-hidden="true">⇩</span> Removals CSV for {data.partNumber ?? `ATA ${data.ataChapter}`}
               </a>
+              </div>
             </div>
             <RateChart
               title={`Unscheduled removals per 1,000 unit hours by month, ${data.subject.label}, with the alert level (k = ${data.k})`}

@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { formatCycles, formatInstant } from "@/lib/format";
 import { SHOP_FINDING_LABELS, type RemovalRow, type RemovalSort, type ShopFinding } from "@/lib/schemas/reliability";
 
@@ -93,7 +94,11 @@ export function RemovalsTable({
               </td>
               <td className="num whitespace-nowrap px-2 py-1.5">{r.ataChapter}</td>
               <td className="num whitespace-nowrap px-2 py-1.5">{r.partNumber}</td>
-              <td className="num whitespace-nowrap px-2 py-1.5">{r.serialNumber}</td>
+              <td className="num whitespace-nowrap px-2 py-1.5">
+                <Link href={`/parts/${r.partId}`} className="font-semibold text-[var(--accent)] underline">
+                  {r.serialNumber}
+                </Link>
+              </td>
               <td className="px-2 py-1.5">
                 <RemovalTypeBadge type={r.removalType} />
               </td>

@@ -123,6 +123,7 @@ export type RemovalListQuery = z.infer<typeof RemovalListQuerySchema>;
 /** One removal as the report shows it. Flight time is "H:MM"; instants ISO 8601 UTC. */
 export interface RemovalRow {
   seq: number;
+  partId: number;
   registration: string;
   aircraftType: string;
   station: string;
