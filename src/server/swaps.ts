@@ -10,6 +10,7 @@ import { appendLedgerEntries, type AppendedEntry } from "./ledger";
 import { assertLicenceValid } from "./licences";
 import { kickOutbox, queueMail } from "./mail";
 import type { AwaitingInspection, SwapCheck, SwapResponse } from "@/lib/swap-types";
+import { checkClosedMonthAlertsLater } from "./reliability-alerts";
 import { firstFailure, planSwap } from "./swap-checks";
 
 export interface SwapResult {
@@ -61,6 +62,7 @@ export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; ide
     try {
       const result = await db().transaction((trx) => writeSwap(trx, input, digest, now));
       kickOutbox();
+      if (result.body.swap.removed && input.swap.removalType === "unscheduled") checkClosedMonthAlertsLater(now, { partIds: [result.body.swap.removed.partId] });
       return result;
     } catch (error) {
       const code = (error as { code?: string }).code;

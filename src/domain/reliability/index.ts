@@ -42,3 +42,17 @@ export { chiSquareCdf, chiSquareQuantile } from "./chi-square";
 
 export { mtbfLowerBound, mtbfConfidenceInterval } from "./mtbf-bounds";
 export type { TestTruncation, MtbfInterval } from "./mtbf-bounds";
+
+export {
+  aircraftMinutesAt,
+  monthOf,
+  monthStart,
+  startOfMonth,
+  monthWindows,
+  unitMinutesByWindow,
+  flightMinutesBetween,
+} from "./exposure";
+export type { UtilizationPoint, FittedInterval, MonthWindow } from "./exposure";
+
+export { reliabilityReport, weibullSample } from "./report";
+export type { Finding, RemovalEvent, ReportInput, ReportMonth, Report, TimeOnWing, WeibullSample } from "./report";

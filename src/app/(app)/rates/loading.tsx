@@ -1,0 +1,7 @@
+export default function Loading() {
+  return (
+    <p role="status" className="p-4 text-lg">
+      Computing the rates…
+    </p>
+  );
+}
