@@ -1,13 +1,14 @@
 // Starts a private MariaDB, the S3 and mail fakes, and the built app (`next start`) for the
 // integration and end-to-end suites, in a temporary directory on free ports.
 import { spawn, type ChildProcess } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { freePort, waitForPort, stopChild } from "../../scripts/lib/fakes";
 import { migrate, projectRoot, startServices, type RunningServices } from "../../scripts/lib/services";
 import { appKnex } from "../../scripts/lib/services";
+import { stopPid } from "../../scripts/lib/mariadb";
 
 declare module "vitest" {
   export interface ProvidedContext {
@@ -50,7 +51,14 @@ export async function setup(project: TestProject) {
   await waitForPort(appPort, 60_000);
   log(`app on ${appUrl}`);
 
-  const env = { ...services.env, APP_URL: appUrl, TEST_TEMP_DIR: tempDir };
+  // The crash suite kills and restarts mariadbd itself; it needs the pid, data directory and port.
+  const env = {
+    ...services.env,
+    APP_URL: appUrl,
+    TEST_TEMP_DIR: tempDir,
+    DB_PID: String(services.mariadb.pid),
+    DB_DATA_DIR: services.mariadb.dataDir,
+  };
   Object.assign(process.env, env);
   project.provide("env", env);
 }
@@ -58,5 +66,11 @@ export async function setup(project: TestProject) {
 export async function teardown() {
   if (app) await stopChild(app);
   if (services) await services.stop();
+  // A suite may have restarted mariadbd under a new pid: stop whichever server the pid file names now.
+  const pidFile = tempDir ? path.join(tempDir, "mariadb", "mysqld.pid") : null;
+  if (pidFile && existsSync(pidFile)) {
+    const pid = Number(readFileSync(pidFile, "utf8").trim());
+    if (Number.isInteger(pid) && pid > 0) await stopPid(pid);
+  }
   if (tempDir) rmSync(tempDir, { recursive: true, force: true });
 }
