@@ -94,6 +94,18 @@ export async function listFleet(trx: Trx = db()): Promise<AircraftSummary[]> {
   return rows.map(toSummary);
 }
 
+/**
+ * Open continuity findings per aircraft: the findings of every unit fitted there now.
+ * Computed from the threads on each call; at fleet scale this wants a cached projection.
+ */
+export async function countOpenFindingsByAircraft(trx: Trx = db()): Promise<Map<number, number>> {
+  const fitted = await trx("fitted").select("aircraft_id", "part_id");
+  const byPart = await countFindings(fitted.map((f) => Number(f.part_id)), trx);
+  const byAircraft = new Map<number, number>();
+  for (const f of fitted) byAircraft.set(f.aircraft_id, (byAircraft.get(f.aircraft_id) ?? 0) + (byPart.get(Number(f.part_id)) ?? 0));
+  return byAircraft;
+}
+
 export async function getAircraftOrThrow(registration: string, trx: Trx = db()): Promise<AircraftSummary> {
   const row = await aircraftBaseQuery(trx).where("a.registration", registration.toUpperCase()).first();
   if (!row) throw notFound(`Aircraft ${registration}`);

@@ -1,14 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { formatCycles, formatInstant } from "@/lib/format";
-import { listFleet } from "@/server/aircraft";
+import { countOpenFindingsByAircraft, listFleet } from "@/server/aircraft";
 import { requireUserFor } from "@/server/page-guard";
 
 export const metadata: Metadata = { title: "Fleet" };
 
 export default async function FleetPage() {
   await requireUserFor("fleet", "/fleet");
-  const fleet = await listFleet();
+  const [fleet, findings] = await Promise.all([listFleet(), countOpenFindingsByAircraft()]);
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-bold">Fleet</h1>
@@ -24,6 +24,7 @@ export default async function FleetPage() {
               <th scope="col" className="px-3 py-2 text-right">Hours</th>
               <th scope="col" className="px-3 py-2 text-right">Cycles</th>
               <th scope="col" className="px-3 py-2">As of</th>
+              <th scope="col" className="px-3 py-2 text-right">Open findings</th>
             </tr>
           </thead>
           <tbody>
@@ -44,6 +45,15 @@ export default async function FleetPage() {
                 <td className="num px-3 py-1 text-right">{a.hours}</td>
                 <td className="num px-3 py-1 text-right">{formatCycles(a.cycles)}</td>
                 <td className="px-3 py-1 text-sm">{formatInstant(a.asOf, a.timeZone)}</td>
+                <td className="num px-3 py-1 text-right">
+                  {findings.get(a.id) ? (
+                    <span className="font-bold text-purple-900 dark:text-purple-200">
+                      <span aria-hidden="true">◆</span> {findings.get(a.id)}
+                    </span>
+                  ) : (
+                    "0"
+                  )}
+                </td>
               </tr>
             ))}
           </tbody>

@@ -1,10 +1,10 @@
 import { ROLES } from "@/lib/roles";
-import { listFleet } from "@/server/aircraft";
+import { countOpenFindingsByAircraft, listFleet } from "@/server/aircraft";
 import { route } from "@/server/http";
 
 // GET /api/aircraft - the fleet with each aircraft's latest hours and cycles
 export const GET = route(ROLES, async () => {
-  const fleet = await listFleet();
+  const [fleet, findings] = await Promise.all([listFleet(), countOpenFindingsByAircraft()]);
   return {
     aircraft: fleet.map((a) => ({
       registration: a.registration,
@@ -15,6 +15,7 @@ export const GET = route(ROLES, async () => {
       hours: a.hours,
       cycles: a.cycles,
       asOf: a.asOf,
+      openFindings: findings.get(a.id) ?? 0,
     })),
   };
 });
