@@ -127,6 +127,27 @@ describe("the auditor's trace", () => {
     await page.close();
   });
 
+  it("shows a correction beside the entry it corrects, each linking to the other", async () => {
+    const serial = `TT-${randomUUID().slice(0, 8).toUpperCase()}`;
+    const unit = await receiveUnitForTest({ partNumber: "QF-3242-50", serialNumber: serial, tsnMinutes: 6_000, csn: 400 });
+    const correction = await http()
+      .post("/api/ledger/corrections")
+      .set("cookie", await signInAs("inspector"))
+      .send({ correctsSeq: unit.seq, reason: "The certificate's block 12 gives CSN 410", csn: 410 });
+    expect(correction.status, correction.text).toBe(201);
+    const page = await browser!.newPage();
+    await signInThroughPage(page, "auditor", `/trace/${unit.partId}`);
+    const original = page.locator(`#seq-${unit.seq}`);
+    await expect.poll(() => original.textContent()).toContain(`Corrected by seq ${correction.body.entry.seq}`);
+    const restated = page.locator(`#seq-${correction.body.entry.seq}`);
+    expect(await restated.textContent()).toContain(`Corrects seq ${unit.seq}`);
+    expect(await restated.textContent()).toContain("CSN: 400 → 410");
+    await restated.getByRole("link", { name: `seq ${unit.seq}` }).click();
+    await page.waitForURL(new RegExp(`#seq-${unit.seq}$`));
+    await screenshot(page, "trace-correction");
+    await page.close();
+  });
+
   it("marks a position on the map whose fitted unit has a finding", async () => {
     const fleet = await http().get("/api/aircraft").set("cookie", auditorCookie);
     let flagged: { registration: string; code: string; findings: number } | null = null;
