@@ -40,6 +40,25 @@ export interface CheckedCertificate {
   originalName: string | null;
 }
 
+/**
+ * The client's file name is kept for the record only (never as a key or a download name), but it is
+ * still shown to people: keep the last path part, drop control and bidirectional-override characters
+ * (an RTL override makes "fdp.exe" read as "exe.pdf"), and cut at 255 characters without splitting one.
+ */
+export function recordableFileName(name: string | undefined): string | null {
+  const base = (name ?? "").split(/[/\\]/).pop() ?? "";
+  // eslint-disable-next-line no-control-regex
+  const printable = base.replace(/[\u0000-\u001f\u007f-\u009f\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, "").replace(/[\uD800-\uDFFF]/g, (c, i, all) => (isPaired(all, i) ? c : "")).trim();
+  const cut = [...printable].slice(0, 255).join("");
+  return cut.length ? cut : null;
+}
+
+function isPaired(text: string, index: number): boolean {
+  const code = text.charCodeAt(index);
+  if (code <= 0xdbff) return index + 1 < text.length && (text.charCodeAt(index + 1) & 0xfc00) === 0xdc00;
+  return index > 0 && (text.charCodeAt(index - 1) & 0xfc00) === 0xd800;
+}
+
 /** Size (413) and type (415) checks on an uploaded certificate; nothing is stored yet. */
 export async function checkCertificateFile(file: File): Promise<CheckedCertificate> {
   if (file.size > MAX_CERTIFICATE_BYTES) throw tooLarge();
@@ -62,7 +81,7 @@ export async function checkCertificateFile(file: File): Promise<CheckedCertifica
     sha256: createHash("sha256").update(bytes).digest("hex"),
     sizeBytes: bytes.byteLength,
     contentType,
-    originalName: file.name ? file.name.slice(0, 255) : null,
+    originalName: recordableFileName(file.name),
   };
 }
 
