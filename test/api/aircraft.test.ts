@@ -137,9 +137,9 @@ describe("POST /api/aircraft/{registration}/utilization", () => {
       .set("cookie", technician)
       .send({
         rows: [
-          { asOf: afterSnapshot(before.body.aircraft.asOf, 120), hours: toHm(minutes + 800), cycles: cycles + 16 },
-          { asOf: afterSnapshot(before.body.aircraft.asOf, 60), hours: toHm(minutes + 400), cycles: cycles + 8 },
-          { asOf: afterSnapshot(before.body.aircraft.asOf, 180), hours: toHm(minutes + 100), cycles: cycles + 20 }, // lower than the hour before
+          { asOf: afterSnapshot(before.body.aircraft.asOf, 2), hours: toHm(minutes + 800), cycles: cycles + 16 },
+          { asOf: afterSnapshot(before.body.aircraft.asOf, 1), hours: toHm(minutes + 400), cycles: cycles + 8 },
+          { asOf: afterSnapshot(before.body.aircraft.asOf, 3), hours: toHm(minutes + 100), cycles: cycles + 20 }, // lower than the minute before
           { asOf: "not a date", hours: "1:00", cycles: 1 },
         ],
       });
