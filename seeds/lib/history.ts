@@ -261,7 +261,7 @@ export function simulateHistory(userIds: { technician: string; inspector: string
         const swapId = `00000000-0000-4000-8000-${String(swaps.length + 1).padStart(12, "0")}`;
         const removedSeq = remove(unit, swapMs, removalType, reason);
         // The spare: a serviceable unit of an eligible part number, else a new receipt.
-        let spare = units.find((u) => u.status === "serviceable" && position.eligible.includes(u.pn.key) && lifeDaysLeft(u, swapMs) > 90 && lifeHoursLeft(u) > 500 * 60);
+        let spare = units.find((u) => u.status === "serviceable" && position.eligible.includes(u.pn.key));
         if (!spare) spare = newUnit(position.eligible[position.eligible.length - 1], swapMs - 3 * 3_600_000, 0);
         const installedSeq = install(spare, aircraft.id, positionId, swapMs + 35 * 60_000, swapId);
         swaps.push({ id: swapId, aircraftId: aircraft.id, positionId, removedSeq, installedSeq, performedAt: iso(swapMs + 35 * 60_000), inspected: position.independentInspection });
@@ -302,8 +302,7 @@ export function simulateHistory(userIds: { technician: string; inspector: string
             }
             removedUnit.status = "serviceable";
             removedUnit.bin = `S2-R${1 + Math.floor(random() * 9)}`;
-            // Booked in at 03:00, before the morning's swaps can pick the unit as a spare.
-            append("repaired", removedUnit, start + backDay * DAY_MS + 3 * 3_600_000, {
+            append("repaired", removedUnit, start + backDay * DAY_MS + 14 * 3_600_000, {
               details: {
                 shop: shop.name,
                 shopApproval: shop.approval,
