@@ -1,3 +1,4 @@
+import { NextResponse } from "next/server";
 import { registrationParam } from "@/lib/schemas/common";
 import { UtilizationImportSchema, UtilizationSchema } from "@/lib/schemas/aircraft";
 import { getAircraftOrThrow, recordUtilization } from "@/server/aircraft";
@@ -33,5 +34,13 @@ export const POST = route<{ registration: string }>(UTILIZATION_WRITERS, async (
     }
   }
   rejected.sort((a, b) => a.row - b.row);
+  // Nothing recorded at all is a refused request, with the same per-row report.
+  if (accepted === 0) {
+    const first = rejected.slice(0, 3).map((r) => `row ${r.row} ${r.field}: ${r.message}`).join("; ");
+    return NextResponse.json(
+      { accepted, rejected, error: { code: "invalid", message: `No row was recorded. ${first}${rejected.length > 3 ? "; …" : ""}` } },
+      { status: 422 },
+    );
+  }
   return { accepted, rejected };
 });
