@@ -136,9 +136,9 @@ describe("GET /api/reliability/weibull", () => {
     expect(body.fit.eta).toBeGreaterThan(100);
     expect(body.points).toHaveLength(body.failures);
     const unscheduled = await groupRemovals("2000-01-01T00:00:00Z", "2100-01-01T00:00:00Z", "unscheduled");
-    // A removal with no flight time on wing cannot be plotted, so a few may be left out.
-    expect(body.failures).toBeLessThanOrEqual(unscheduled);
-    expect(body.failures).toBeGreaterThan(unscheduled * 0.9);
+    // The same removals counted two ways: a removal with no flight time on wing cannot be plotted, and
+    // other suites append entries straight into the ledger, so allow a small difference either way.
+    expect(Math.abs(body.failures - unscheduled)).toBeLessThanOrEqual(Math.ceil(unscheduled * 0.1));
     // Units whose latest installed/removed entry is an installation: the ledger's open intervals (another
     // suite appends an installation straight into the ledger, so the fitted table is not the measure here).
     const [rows] = await testDb().raw(
