@@ -5,7 +5,7 @@ import { formatFlightTime } from "@/domain/flight-time";
 import type { FittedUnit, MapPosition, PositionState } from "@/lib/position-types";
 import { db, type Trx } from "./db";
 import { AppError, notFound } from "./errors";
-import { countFindings } from "./trace";
+import { countFindings } from "./thread-findings";
 
 export interface AircraftSummary {
   id: number;
@@ -95,8 +95,8 @@ export async function listFleet(trx: Trx = db()): Promise<AircraftSummary[]> {
 }
 
 /**
- * Open continuity findings per aircraft: the findings of every unit fitted there now.
- * Computed from the threads on each call; at fleet scale this wants a cached projection.
+ * Open continuity findings per aircraft: the findings of every unit fitted there now (cached counts,
+ * re-checked only for threads that changed).
  */
 export async function countOpenFindingsByAircraft(trx: Trx = db()): Promise<Map<number, number>> {
   const fitted = await trx("fitted").select("aircraft_id", "part_id");

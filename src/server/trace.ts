@@ -280,10 +280,11 @@ function checkThread(facts: ThreadFacts): TraceFinding[] {
 }
 
 /**
- * Findings per unit, for the given units (for example every unit fitted on one aircraft): every
- * kind of finding, not only the cheap ones, since the facts for a whole aircraft come in one read.
+ * Findings per unit, checked afresh, for the given units: every kind of finding, not only the cheap
+ * ones, since the facts for many units come in one read. Screens that only show counts read them
+ * through the cache in thread-findings.ts, which calls this for the units whose thread changed.
  */
-export async function countFindings(partIds: number[], trx: Trx = db()): Promise<Map<number, number>> {
+export async function checkFindingCounts(partIds: number[], trx: Trx = db()): Promise<Map<number, number>> {
   const { facts } = await loadThreads(partIds, trx, false);
   const counts = new Map<number, number>();
   for (const [partId, threadFacts] of facts) counts.set(partId, checkThread(threadFacts).length);
