@@ -2,6 +2,13 @@
 // server, the demo seed and the tests, so all three read and write the chain exactly alike.
 import type { ChainedLedgerEntry, LedgerEntryFields } from "@/domain/ledger-types";
 
+/** Every column of ledger_entries, in the order the ledger check streams them as arrays. */
+export const LEDGER_ENTRY_COLUMNS = [
+  "seq", "kind", "part_id", "aircraft_id", "position_id", "occurred_at", "recorded_at", "recorded_by",
+  "aircraft_minutes", "aircraft_cycles", "tsn_minutes", "csn", "tso_minutes", "cso", "removal_type", "reason",
+  "work_order", "task_reference", "test_result", "document_id", "corrects_seq", "details", "prev_hash", "hash",
+] as const;
+
 export function entryToRow(entry: ChainedLedgerEntry) {
   return {
     seq: entry.seq,

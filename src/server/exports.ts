@@ -4,7 +4,8 @@ import type { PoolConnection } from "mysql2";
 import { formatFlightTime } from "@/domain/flight-time";
 import { REMOVALS_CSV_HEADER, type RemovalFilters } from "@/lib/schemas/reliability";
 import { pool } from "./db";
-import { REMOVALS_COLUMNS, REMOVALS_FROM, removalsWhere, type RemovalDbRow } from "./removals";
+import type { RemovalDbRow } from "./removals";
+import { removalsExportSql } from "./removals-sql";
 
 // The removals export streams straight from a database cursor into the HTTP response: rows arrive
 // from mysql2's query stream, are written as CSV with papaparse ~5,000 at a time, and the query is
@@ -50,15 +51,6 @@ const UNPARSE_OPTIONS = { header: false, newline: "\r\n", escapeFormulae: true }
 
 export function csvChunk(rows: unknown[][]): string {
   return rows.length ? `${Papa.unparse(rows, UNPARSE_OPTIONS)}\r\n` : "";
-}
-
-export function removalsExportSql(filters: RemovalFilters): { sql: string; params: unknown[] } {
-  const where = removalsWhere(filters);
-  return {
-    // FORCE INDEX (PRIMARY): read in seq order, so there is no sort to wait for before the first row.
-    sql: `SELECT STRAIGHT_JOIN ${REMOVALS_COLUMNS} ${REMOVALS_FROM.replace("FROM ledger_entries r", "FROM ledger_entries r FORCE INDEX (PRIMARY)")} ${where.sql} ORDER BY r.seq`,
-    params: where.params,
-  };
 }
 
 function connection(): Promise<PoolConnection> {

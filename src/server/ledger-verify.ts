@@ -2,6 +2,7 @@ import "server-only";
 import type { PoolConnection } from "mysql2";
 import { ChainVerifier, type ChainBreakReason } from "@/domain/ledger-hash";
 import type { ChainedLedgerEntry, LedgerEntryFields } from "@/domain/ledger-types";
+import { LEDGER_ENTRY_COLUMNS } from "@/lib/ledger-rows";
 import { pool } from "./db";
 
 // The ledger check: recompute the hash chain over every entry, in seq order, straight from
@@ -36,17 +37,10 @@ export interface LedgerBroken {
 
 export type LedgerVerification = LedgerIntact | LedgerBroken;
 
-// Column order of the streamed rows; the array positions below follow it.
-const COLUMNS = [
-  "seq", "kind", "part_id", "aircraft_id", "position_id", "occurred_at", "recorded_at", "recorded_by",
-  "aircraft_minutes", "aircraft_cycles", "tsn_minutes", "csn", "tso_minutes", "cso", "removal_type", "reason",
-  "work_order", "task_reference", "test_result", "document_id", "corrects_seq", "details", "prev_hash", "hash",
-] as const;
-
 const nullableNumber = (value: unknown) => (value === null ? null : Number(value));
 const isoOf = (value: unknown) => (value instanceof Date ? value.toISOString() : new Date(String(value) + "Z").toISOString());
 
-/** Fills `into` from one array row; the verifier keeps no reference, so one object serves every row. */
+/** Fills `into` from one array row (columns in LEDGER_ENTRY_COLUMNS order); the verifier keeps no reference, so one object serves every row. */
 function fillEntry(into: ChainedLedgerEntry, row: unknown[]): ChainedLedgerEntry {
   into.seq = Number(row[0]);
   into.kind = row[1] as LedgerEntryFields["kind"];
@@ -104,7 +98,7 @@ export async function verifyLedger(): Promise<LedgerVerification> {
     const verifier = new ChainVerifier();
     const scratch = {} as ChainedLedgerEntry;
     const stream = connection
-      .query({ sql: `SELECT ${COLUMNS.join(", ")} FROM ledger_entries WHERE seq <= ? ORDER BY seq`, values: [headSeq], rowsAsArray: true })
+      .query({ sql: `SELECT ${LEDGER_ENTRY_COLUMNS.join(", ")} FROM ledger_entries WHERE seq <= ? ORDER BY seq`, values: [headSeq], rowsAsArray: true })
       .stream({ highWaterMark: 512 });
     let lastSeq = 0;
     let broken = false;
