@@ -29,9 +29,8 @@ export function requestDigest(raw: unknown): string {
   return createHash("sha256").update(JSON.stringify(canonical(raw))).digest("hex");
 }
 
-async function storedAnswer(trx: Knex | Knex.Transaction, key: string, digest: string, lock: boolean): Promise<SwapResult | null> {
-  const query = trx("swaps").where({ idempotency_key: key }).first("request_hash", "response");
-  const row = lock ? await query.forShare() : await query;
+async function storedAnswer(trx: Knex | Knex.Transaction, key: string, digest: string): Promise<SwapResult | null> {
+  const row = await trx("swaps").where({ idempotency_key: key }).first("request_hash", "response");
   if (!row) return null;
   if (row.request_hash !== digest) {
     throw new AppError("invalid", "This Idempotency-Key was already used for a different swap. Use a new key for a new swap.", "idempotency_key_reused", {
@@ -51,7 +50,7 @@ const RETRYABLE = new Set(["ER_LOCK_DEADLOCK", "ER_LOCK_WAIT_TIMEOUT", "ER_CHECK
 export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; idempotencyKey: string; actor: User; now?: Date }): Promise<SwapResult> {
   const now = input.now ?? new Date();
   const digest = requestDigest(input.rawBody);
-  const earlier = await storedAnswer(db(), input.idempotencyKey, digest, false);
+  const earlier = await storedAnswer(db(), input.idempotencyKey, digest);
   if (earlier) return earlier;
   assertLicenceValid(input.actor, now);
   if (input.swap.performedAt.getTime() > now.getTime() + 5 * 60_000) {
@@ -61,13 +60,16 @@ export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; ide
   for (let attempt = 1; ; attempt++) {
     try {
       const result = await db().transaction((trx) => writeSwap(trx, input, digest, now));
-      kickOutbox();
-      if (result.body.swap.removed && input.swap.removalType === "unscheduled") checkClosedMonthAlertsLater(now, { partIds: [result.body.swap.removed.partId] });
+      // Only an unscheduled removal queues mail (see writeSwap); other swaps leave the outbox alone.
+      if (result.body.swap.removed && input.swap.removalType === "unscheduled") {
+        kickOutbox();
+        checkClosedMonthAlertsLater(now, { partIds: [result.body.swap.removed.partId] });
+      }
       return result;
     } catch (error) {
       const code = (error as { code?: string }).code;
       if (code === "ER_DUP_ENTRY" && String((error as Error).message).includes("idempotency_key")) {
-        const answer = await storedAnswer(db(), input.idempotencyKey, digest, false);
+        const answer = await storedAnswer(db(), input.idempotencyKey, digest);
         if (answer) return answer;
       }
       // Deadlocks and (on a Galera cluster) certification failures are safe to retry: nothing was written.
@@ -80,8 +82,13 @@ export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; ide
 async function writeSwap(trx: Knex.Transaction, input: { swap: SwapInput; idempotencyKey: string; actor: User }, digest: string, now: Date): Promise<SwapResult> {
   const { swap, actor } = input;
   const plan = await planSwap(trx, swap, { lock: true, now });
-  // A concurrent request with the same key may have committed while we waited for the aircraft lock.
-  const raced = await storedAnswer(trx, input.idempotencyKey, digest, true);
+  // A retry with the same key (the same body, so the same aircraft) may have committed while we
+  // waited for the aircraft lock. A plain read sees it: the transaction's snapshot is taken at its
+  // first plain read, which planSwap makes after the aircraft lock is granted. A locking read here
+  // would take a gap lock on the key index that concurrent swaps on other aircraft then deadlock on
+  // when they insert their keys. The same key with another body (another aircraft, not serialised
+  // by that lock) is caught by the unique key on insert and answered in recordSwap.
+  const raced = await storedAnswer(trx, input.idempotencyKey, digest);
   if (raced) return raced;
   const refusal = firstFailure(plan);
   if (refusal) throw refusal;

@@ -159,6 +159,21 @@ describe("POST /api/swaps", () => {
     expect(verification.ok).toBe(true);
     expect(await fittedProjection()).toEqual(await fittedRebuiltFromLedger());
   });
+
+  it("answers 10 concurrent retries of one swap (same key, same body) with the same 201 and records it once", async () => {
+    const totals = await latestTotals("Q-FRAB");
+    const off = await fittedAt("Q-FRAB", "B2-EBA3");
+    const [on] = await spares(ACTUATORS, 1);
+    const installedEntries = () => testDb()("ledger_entries").where({ part_id: on.id, kind: "installed" }).count({ n: "*" });
+    const [before] = await installedEntries();
+    const key = randomUUID();
+    const body = swapBody({ registration: "Q-FRAB", positionCode: "B2-EBA3", minutes: totals.minutes + 5, cycles: totals.cycles, removed: off, installed: on });
+    const responses = await Promise.all(Array.from({ length: 10 }, () => postSwap(technician, body, key)));
+    expect(responses.map((r) => r.status)).toEqual(Array(10).fill(201));
+    expect(new Set(responses.map((r) => r.body.swap.id)).size).toBe(1);
+    expect(await testDb()("swaps").where({ idempotency_key: key }).count({ n: "*" })).toEqual([{ n: 1 }]);
+    expect(await installedEntries()).toEqual([{ n: Number(before.n) + 1 }]);
+  });
 });
 
 describe("POST /api/swaps/check", () => {
