@@ -15,14 +15,20 @@ import { computeReport, groupOf, loadInterchange, type Subject } from "./reliabi
 // removal. It looks back over the last few closed months, so a month is still caught when nobody
 // opened the rates page or recorded a removal on the day it closed.
 
-/** The programme's k for mailed alerts (the rates page may show other k values; they do not mail). */
+/**
+ * The k for mailed alerts (the Rates page may show other k values; they do not mail). k = 2 is
+ * common practice [from memory]; the operator's reliability programme sets its own.
+ */
 export const ALERT_K = 2;
 export const LOOKBACK_MONTHS = 3;
 /**
- * A month is mailed only with at least this many unscheduled removals. Mean + k·SD of twelve quiet
- * months is zero for a part that rarely comes off, so its first removal in a year would "cross" it:
- * on the demo fleet that was 7 of 12 alerts. Threadline's own guard, not a published rule; the
- * month is still marked above its level on the Rates page.
+ * THREADLINE'S OWN RULE, not from AC 120-17B or any published alert method: a closed month above its
+ * alert level is mailed only when it had at least this many unscheduled removals. Mean + k·SD of
+ * twelve quiet months is zero for a part that rarely comes off, so its first removal in a year
+ * would "cross" it: on the demo fleet that was 7 of 12 alerts. The month is still marked above its
+ * level on the Rates page, and the page's "How the alert level is computed" note states this rule
+ * (AlertMethodNote, fed from this constant). Alerting rules belong to the operator's reliability
+ * programme; where its programme document says otherwise, this value must follow it.
  */
 export const ALERT_MIN_UNSCHEDULED = 2;
 /** A full check (every part number) is repeated at most this often per process; a targeted one always runs. */

@@ -10,6 +10,20 @@ import {
   type MonthlyValue,
 } from "@/domain/reliability";
 
+// Where the expected values come from. No published worked example with numbers (monthly figures
+// and the resulting alert level) was found for any of these methods, so every expected value below
+// is HAND-COMPUTED by us from the method's definition, on numbers we made up; none is quoted from a
+// published table.
+//  - mean + k·SD (alertLevel, markAlerts): the method is common practice, recalled [from memory]
+//    (trade-facts §4.3 [M]); values hand-computed.
+//  - 1.3 × mean of the 3-month running averages (alertLevelRunningAverage): the METHOD is published,
+//    Transport Canada AMA 571.101/1 Appendix A "Calculation of alert levels", Example 1 ("Pireps -
+//    1.3 Mean Alert Level"; trade-facts §4.3 [C]); the appendix's Figure 1 numbers were not found,
+//    so the values are hand-computed, not the published example's.
+//  - Poisson alert count (poissonAlert): the method is [from memory] (trade-facts §4.3 [M]); values
+//    hand-computed, and the tail probabilities cross-checked against jstat's Poisson CDF (another
+//    implementation, not a published table).
+
 interface JStatPoisson {
   poisson: { cdf(k: number, lambda: number): number };
 }
@@ -55,7 +69,7 @@ describe("monthlyRates", () => {
 });
 
 describe("alertLevel: mean + k·SD with the sample SD (n − 1)", () => {
-  // Computed by hand from the mean + k·SD definition (common practice, trade-facts 4.3 [M]); the numbers are ours.
+  // Hand-computed from the mean + k·SD definition (method [from memory], trade-facts §4.3 [M]); the rates are ours.
   // Rates 2,4,4,4,5,5,7,9: mean 5, squared deviations sum to 32, sample SD √(32/7) = 2.13809.
   it("k = 2 by default: 5 + 2 × 2.13809 = 9.27618", () => {
     expect(alertLevel([2, 4, 4, 4, 5, 5, 7, 9])).toBeCloseTo(9.27618, 5);
@@ -77,7 +91,7 @@ describe("alertLevel: mean + k·SD with the sample SD (n − 1)", () => {
 });
 
 describe("markAlerts", () => {
-  // Computed by hand from the mean + k·SD definition (trade-facts 4.3 [M]); the numbers are ours.
+  // Hand-computed from the mean + k·SD definition (method [from memory], trade-facts §4.3 [M]); the rates are ours.
   // 2025: rates alternate 1, 3, 1, 3, … (Jan = 1, Dec = 3); 2026-01 = 4.5; 2026-02 = 4.0.
   const rates = [1, 3, 1, 3, 1, 3, 1, 3, 1, 3, 1, 3, 4.5, 4.0];
   const series: MonthlyValue[] = monthsFrom(2025, 14).map((month, i) => ({ month, rate: rates[i] }));
@@ -144,8 +158,9 @@ describe("markAlerts", () => {
   });
 });
 
-describe("alertLevelRunningAverage (TC AMA 571.101/1 App. A Example 1)", () => {
-  // Computed by hand from the method in TC AMA 571.101/1 App. A Example 1 (the published method; the numbers are ours).
+describe("alertLevelRunningAverage: the method of TC AMA 571.101/1 App. A Example 1, on hand-computed values", () => {
+  // Method: TC AMA 571.101/1 Appendix A, Example 1 (published). Values: hand-computed by us on rates we made up;
+  // the appendix's own Figure 1 data and alert level were not found, so this is not the published example.
   // Rates 1.2, 0.9, 1.5, 1.8, 0.6, 1.2 → 3-month running averages 1.2, 1.4, 1.3, 1.2;
   // their mean 5.1 / 4 = 1.275; × 1.3 = 1.6575.
   it("is 1.3 × the mean of the 3-month running averages: 1.6575", () => {
@@ -167,7 +182,7 @@ describe("alertLevelRunningAverage (TC AMA 571.101/1 App. A Example 1)", () => {
 });
 
 describe("poissonAlert", () => {
-  // Computed by hand from the Poisson alert definition (trade-facts 4.3 [M]); the numbers are ours.
+  // Hand-computed from the Poisson alert definition (method [from memory], trade-facts §4.3 [M]); the numbers are ours.
   // Baseline 0.8 per 1,000 unit hours × 2,500 unit hours → λ = 2.
   // P(X ≤ 4) = e⁻²(1 + 2 + 2 + 4/3 + 2/3) = 7e⁻² = 0.947347, so P(X ≥ 5) = 0.052653;
   // P(X = 5) = e⁻² · 32/120 = 0.036089, so P(X ≥ 6) = 0.016564.
@@ -188,7 +203,7 @@ describe("poissonAlert", () => {
     expect(poissonAlert(0, 1000).alertCount).toBe(1);
   });
 
-  it("tail probabilities agree with jstat", () => {
+  it("tail probabilities agree with jstat (an independent implementation, not a published table)", () => {
     // (kept to counts where jstat's factorial-based Poisson CDF stays finite)
     for (const lambda of [0.1, 2, 7.5, 40, 90]) {
       for (const count of [1, 2, 5, 10, 50, 100, 120]) {

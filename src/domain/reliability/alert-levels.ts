@@ -54,6 +54,14 @@ export interface MonthlyAlert extends MonthlyValue {
   aboveAlert: boolean | null;
 }
 
+/** Calendar months before a month whose rates make its alert level (mean + k·SD): common practice [from memory]. */
+export const DEFAULT_BASELINE_MONTHS = 12;
+/**
+ * Fewest earlier months with a rate for a month to get an alert level. Threadline's own rule, not a
+ * published one: mean + k·SD of a handful of months is too unsteady to act on.
+ */
+export const DEFAULT_MIN_PRIOR_MONTHS = 6;
+
 /** Rejects duplicate or out-of-order months; gaps are allowed (the window handles them). */
 function requireAscendingMonths(where: string, months: ReadonlyArray<{ month: string }>): number[] {
   const indices = months.map((m, i) => monthIndex(`${where} [${i}]`, m.month));
@@ -126,15 +134,16 @@ export function alertLevel(previousMonthlyRates: ReadonlyArray<number>, k = 2): 
  * The baseline is the calendar window of `window` months before the month
  * (for 2026-01 with window 12: 2025-01 to 2025-12); months
  * missing from the series or with a null rate are simply not in it. A month
- * whose window holds fewer than `minPriorMonths` rates (default 6, or the window
- * if smaller) gets a null alert level, because mean + k·SD from a handful of
- * months is too unstable to act on.
+ * whose window holds fewer than `minPriorMonths` rates (default
+ * DEFAULT_MIN_PRIOR_MONTHS = 6, or the window if smaller; our own rule) gets a
+ * null alert level, because mean + k·SD from a handful of months is too
+ * unstable to act on.
  */
 export function markAlerts(
   series: ReadonlyArray<MonthlyValue>,
   k = 2,
-  window = 12,
-  minPriorMonths = Math.min(6, window),
+  window = DEFAULT_BASELINE_MONTHS,
+  minPriorMonths = Math.min(DEFAULT_MIN_PRIOR_MONTHS, window),
 ): MonthlyAlert[] {
   const indices = requireAscendingMonths("markAlerts", series);
   requireFiniteNonNegative("markAlerts", "k", k);
@@ -177,6 +186,15 @@ export function markAlerts(
  * average is the plain mean of the monthly rates. A programme that instead
  * pools the counts and hours of the three months gets a slightly different
  * figure when monthly hours differ; its programme document must say which.
+ *
+ * Against the published text (TC AMA 571.101/1 App. A, Example 1 "Pireps - 1.3
+ * Mean Alert Level"): the three-month running-average PIREP rate per 1,000 hours
+ * is averaged over the sample operating period (the mean) and multiplied by
+ * 1.3. That is what this computes. The text leaves open the two choices above
+ * (mean of monthly rates or pooled; running averages only inside the sample),
+ * and it is written for PIREP rates: using it on removal rates is our
+ * adaptation. Its Figure 1 numbers were not available to check against, so the
+ * unit tests use hand-computed values.
  */
 export function alertLevelRunningAverage(
   rates: ReadonlyArray<number>,

@@ -13,7 +13,7 @@ export {
 } from "./removal-stats";
 export type { RemovalCounts, RemovalStatistics } from "./removal-stats";
 
-export { monthlyRates, alertLevel, markAlerts, alertLevelRunningAverage } from "./alert-levels";
+export { monthlyRates, alertLevel, markAlerts, alertLevelRunningAverage, DEFAULT_BASELINE_MONTHS, DEFAULT_MIN_PRIOR_MONTHS } from "./alert-levels";
 export type { MonthlyCounts, MonthlyRate, MonthlyValue, MonthlyAlert } from "./alert-levels";
 
 export { poissonAlert, poissonTailProbability } from "./poisson-alert";

@@ -9,7 +9,7 @@
 // period as well, so even its first month has a level.
 
 import { DomainInputError } from "../errors";
-import { markAlerts } from "./alert-levels";
+import { DEFAULT_BASELINE_MONTHS, markAlerts } from "./alert-levels";
 import { mtbfConfidenceInterval } from "./mtbf-bounds";
 import { removalRatePer1000, removalStatistics } from "./removal-stats";
 import type { MonthWindow } from "./exposure";
@@ -102,7 +102,7 @@ const wholeMinutes = (minutes: number) => Math.max(0, Math.round(minutes));
 
 export function reliabilityReport(input: ReportInput): Report {
   const { windows, unitMinutes, removals, periodStart, now, k } = input;
-  const baselineMonths = input.baselineMonths ?? 12;
+  const baselineMonths = input.baselineMonths ?? DEFAULT_BASELINE_MONTHS;
   const confidence = input.confidence ?? 0.9;
   if (windows.length !== unitMinutes.length) {
     throw new DomainInputError(`reliabilityReport: ${windows.length} windows but ${unitMinutes.length} unit-minute figures`, "unitMinutes");

@@ -1,12 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { AlertMethodNote } from "@/components/reliability/alert-method-note";
 import { RatesView } from "@/components/reliability/rates-view";
 import type { RatesParams } from "@/components/reliability/queries";
+import { DEFAULT_BASELINE_MONTHS, DEFAULT_MIN_PRIOR_MONTHS } from "@/domain/reliability";
 import { ReliabilityQuerySchema, WeibullQuerySchema, type ReliabilityAnswer, type WeibullAnswer } from "@/lib/schemas/reliability";
 import { AppError } from "@/server/errors";
 import { requireUserFor } from "@/server/page-guard";
 import { getReliability, getWeibull, rateSubjectOptions } from "@/server/reliability";
-import { checkClosedMonthAlertsLater } from "@/server/reliability-alerts";
+import { ALERT_K, ALERT_MIN_UNSCHEDULED, checkClosedMonthAlertsLater } from "@/server/reliability-alerts";
 
 export const metadata: Metadata = { title: "Rates" };
 
@@ -43,8 +45,9 @@ export default async function RatesPage({ searchParams }: { searchParams: Promis
         <h1 className="text-2xl font-bold">Rates</h1>
         <p className="max-w-4xl">
           Unscheduled removal rates per 1,000 unit hours, MTBUR, MTBF from shop-confirmed failures, no-fault-found rate and alert levels, for a part number with its
-          alternates or for an ATA chapter. Programme basis: FAA AC 120-17B (12/19/18); the alert method (mean + k·SD of the previous 12 months) is common practice,
-          from memory: your reliability programme document sets the method and k.
+          alternates or for an ATA chapter. Programme basis: FAA AC 120-17B (12/19/18). The alert method shown (mean + k·SD of the previous 12 months) is common
+          practice, from memory; alerting rules are set by the operator&apos;s reliability programme, whose document sets the method and k (see &ldquo;How the alert
+          level is computed&rdquo; below).
         </p>
       </div>
       {!params.partNumber && !params.ataChapter && options.busiest.length ? (
@@ -65,6 +68,7 @@ export default async function RatesPage({ searchParams }: { searchParams: Promis
         </nav>
       ) : null}
       <RatesView key={JSON.stringify(params)} initialParams={params} initialData={initialData} initialWeibull={initialWeibull} partNumbers={options.partNumbers} chapters={options.chapters} />
+      <AlertMethodNote baselineMonths={DEFAULT_BASELINE_MONTHS} minPriorMonths={DEFAULT_MIN_PRIOR_MONTHS} mailK={ALERT_K} minUnscheduled={ALERT_MIN_UNSCHEDULED} />
     </div>
   );
 }
