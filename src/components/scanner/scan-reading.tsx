@@ -112,8 +112,8 @@ export function ScanReading({
           ) : null}
           {target.kind === "position" ? (
             <p>
-              Scan the position&apos;s own label again, or type the text printed under its codes, for example{" "}
-              <span className="num">{typingExample(target)}</span>. You can also cancel and choose the position from the list.
+              Scan the position&apos;s own label again, or type the text printed under its codes, like{" "}
+              <span className="num">{typingExample(target)}</span>.
             </p>
           ) : (
             <p>

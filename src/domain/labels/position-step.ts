@@ -39,7 +39,7 @@ export function readPositionStepLabel(
   if (part.ok) {
     return refusal(
       "not_a_position_label",
-      `This is a part label (P/N ${part.partNumber}, S/N ${part.serialNumber}), not a position label. ${NEXT_STEP} ${form}`,
+      `This is a part label (P/N ${part.partNumber}, S/N ${part.serialNumber}), not a position label. ${NEXT_STEP}`,
       part.elements,
     );
   }
@@ -48,5 +48,5 @@ export function readPositionStepLabel(
   }
   // It reads as a part label, if an incomplete one.
   const found = part.found.length > 0 ? ` (it carries ${describeElements(part.found)})` : "";
-  return refusal("not_a_position_label", `This looks like a part label${found}, not a position label. ${NEXT_STEP} ${form}`, part.found);
+  return refusal("not_a_position_label", `This looks like a part label${found}, not a position label. ${NEXT_STEP}`, part.found);
 }
