@@ -54,7 +54,7 @@ export type PositionLabelParseResult = PositionLabelReading | LabelRefusal;
 /** The aircraft a position label must belong to at the position-choice step of a swap. */
 export interface PositionLabelContext {
   registration: string;
-  positionCodes: Iterable<string>;
+  positionCodes: readonly string[];
 }
 
 const element = (id: "REG" | "POS", value: string): LabelElement => ({
@@ -183,7 +183,7 @@ export function checkPositionLabel(reading: PositionLabelReading, context: Posit
       reading.elements,
     );
   }
-  const codes = new Set([...context.positionCodes].map((code) => code.toUpperCase()));
+  const codes = new Set(context.positionCodes.map((code) => code.toUpperCase()));
   if (!codes.has(reading.positionCode)) {
     return refusal(
       "unknown_position",

@@ -30,7 +30,7 @@ export function readPositionStepLabel(
     const reading = parsePositionLabel(raw);
     return reading.ok ? checkPositionLabel(reading, context) : reading;
   }
-  const example = [...context.positionCodes][0];
+  const example = context.positionCodes[0];
   const form = `Position labels read ${POSITION_LABEL_FORM}${example ? `, like "${POSITION_LABEL_TAG} ${context.registration.toUpperCase()} ${example}"` : ""}.`;
   const text = normaliseControlCharacters(raw).trim();
   if (text === "") return refusal("not_a_position_label", `The scan is empty. ${form}`, []);
