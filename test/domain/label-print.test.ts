@@ -2,7 +2,7 @@
 // decoded with the camera scanner's decoder (ZXing, as bundled by html5-qrcode) and parsed with
 // parseLabel, and must give back the same P/N, S/N and CAGE.
 import { describe, expect, it } from "vitest";
-import { encodeIso15434Format06ForCode128, parseLabel } from "../../src/domain/labels";
+import { encodeIso15434Format06ForCode128, encodePositionLabel, parseLabel, parsePositionLabel } from "../../src/domain/labels";
 import { labelMessage, renderLabelPng } from "../../src/server/label-symbols";
 import { decodeSymbol } from "./label-print-decoder";
 
@@ -34,4 +34,26 @@ describe("printed label symbols", () => {
   it("knows which Code 128 labels survive a decoder that drops the separators", () => {
     expect(UNITS.map((unit) => encodeIso15434Format06ForCode128(unit).readableWithoutSeparators)).toEqual([true, false, true]);
   });
+});
+
+// Position labels (Threadline's own syntax) carry plain printable text in both symbols.
+const POSITIONS = [
+  { registration: "Q-FRBC", positionCode: "B2-EBA1" },
+  { registration: "Q-FRAA", positionCode: "E2-STARTER" },
+  { registration: "Q-FRBD", positionCode: "NLG-STEER" },
+  // The longest the schemas allow: 16 and 32 characters.
+  { registration: "QZ-ABCDEFGHIJKLM", positionCode: "LONG-POSITION-CODE-0123456789-AB" },
+];
+
+describe("printed position label symbols", () => {
+  for (const position of POSITIONS) {
+    for (const symbology of ["datamatrix", "code128"] as const) {
+      it(`${symbology} reads back as ${position.registration} ${position.positionCode}`, async () => {
+        const text = encodePositionLabel(position);
+        const decoded = decodeSymbol(await renderLabelPng(symbology, text, 3), symbology);
+        expect(decoded).toBe(text);
+        expect(parsePositionLabel(decoded)).toMatchObject({ ok: true, ...position });
+      });
+    }
+  }
 });

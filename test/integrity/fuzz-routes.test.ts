@@ -142,6 +142,8 @@ const READ_ROUTES: Array<{ path: (segment: string) => string; query: string[] }>
   { path: () => "/api/aircraft", query: [] },
   { path: (s) => `/api/aircraft/${s}`, query: [] },
   { path: (s) => `/api/aircraft/${s}/utilization`, query: [] },
+  { path: (s) => `/api/aircraft/Q-FRAA/positions/${s}/label.png`, query: ["symbol", "scale"] },
+  { path: (s) => `/api/aircraft/${s}/positions/B1-EBA1/label.png`, query: ["symbol", "scale"] },
   { path: (s) => `/api/documents/${s}`, query: [] },
 ];
 const segment = fc.oneof(

@@ -35,6 +35,7 @@ export function AirframeView({ initial, canSwap }: { initial: AircraftDetailResp
               position={selected}
               timeZone={data.aircraft.timeZone}
               swapHref={canSwap ? `/aircraft/${encodeURIComponent(registration)}/swap?position=${encodeURIComponent(selected.code)}` : null}
+              labelHref={`/aircraft/${encodeURIComponent(registration)}/position-labels?position=${encodeURIComponent(selected.code)}`}
             />
           ) : (
             <p className="panel p-4">Tap a position on the map, or pick one in the table, to see what is fitted there.</p>

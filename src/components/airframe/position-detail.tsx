@@ -4,7 +4,18 @@ import { PositionStateBadge } from "@/components/status/position-state";
 import { formatCycles, formatInstant } from "@/lib/format";
 import type { MapPosition } from "@/lib/position-types";
 
-export function PositionDetail({ position, timeZone, swapHref }: { position: MapPosition; timeZone: string; swapHref: string | null }) {
+export function PositionDetail({
+  position,
+  timeZone,
+  swapHref,
+  labelHref,
+}: {
+  position: MapPosition;
+  timeZone: string;
+  swapHref: string | null;
+  /** The print page of this position's label. */
+  labelHref?: string;
+}) {
   const fitted = position.fitted;
   return (
     <section aria-labelledby="position-heading" className="panel space-y-3 p-4" data-testid="position-detail">
@@ -87,6 +98,11 @@ export function PositionDetail({ position, timeZone, swapHref }: { position: Map
         {swapHref ? (
           <Link href={swapHref} className="btn btn-primary">
             Record a swap here
+          </Link>
+        ) : null}
+        {labelHref ? (
+          <Link href={labelHref} className="btn btn-secondary">
+            Print its position label
           </Link>
         ) : null}
       </div>

@@ -21,7 +21,7 @@ export interface PartLabelContent {
  */
 export function PartLabel({ content }: { content: PartLabelContent }) {
   return (
-    <article className="part-label" aria-label={`Label for P/N ${content.partNumber} S/N ${content.serialNumber}`}>
+    <article className="label-box part-label" aria-label={`Label for P/N ${content.partNumber} S/N ${content.serialNumber}`}>
       <div className="part-label-top">
         <div
           className="part-label-matrix"

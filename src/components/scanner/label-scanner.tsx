@@ -1,11 +1,12 @@
 "use client";
 
-// Reads one part label at the aircraft: live camera (Code 128, Data Matrix, QR), a photo, or typed /
-// wedge-scanned text. Each reading is parsed at once and shown for the user to accept or redo; only
-// an accepted reading reaches `onResult`. Load it through LazyLabelScanner, not directly.
+// Reads one label at the aircraft: a part label, or at the position step a position label (`target`).
+// Live camera (Code 128, Data Matrix, QR), a photo, or typed / wedge-scanned text. Each reading is
+// parsed at once and shown for the user to accept or redo; only an accepted reading reaches
+// `onResult`. Load it through LazyLabelScanner, not directly.
 import { useCallback, useId, useRef, useState } from "react";
 import { CameraViewfinder } from "./camera-viewfinder";
-import { readDecodedLabel, readTypedLabel, type DecodedText, type LabelScan } from "./label-scan";
+import { PART_LABEL_TARGET, readDecodedLabel, readTypedLabel, typingExample, type DecodedText, type LabelScan, type ScanTarget } from "./label-scan";
 import { ManualLabelEntry } from "./manual-label-entry";
 import { PhotoLabelInput } from "./photo-label-input";
 import { ScanReading } from "./scan-reading";
@@ -14,20 +15,22 @@ import { useCameraScanner } from "./use-camera-scanner";
 export interface LabelScannerProps {
   /** What to scan, shown as the heading, e.g. "Scan the OFF part's label". */
   label: string;
+  /** What to read: a part label (the default), or a position label of the given aircraft. */
+  target?: ScanTarget;
   /** Called once, with the reading the user accepted; the camera is already stopping. */
   onResult: (result: LabelScan) => void;
   /** Shows a Cancel button when given. */
   onCancel?: () => void;
 }
 
-export type { LabelScan } from "./label-scan";
+export type { LabelScan, ScanTarget } from "./label-scan";
 
 function buzz() {
   // A short buzz says "read" to someone looking at the part rather than the screen.
   if (typeof navigator !== "undefined" && typeof navigator.vibrate === "function") navigator.vibrate(80);
 }
 
-export function LabelScanner({ label, onResult, onCancel }: LabelScannerProps) {
+export function LabelScanner({ label, target = PART_LABEL_TARGET, onResult, onCancel }: LabelScannerProps) {
   const id = useId();
   const elementId = `${id}-camera`;
   const headingId = `${id}-heading`;
@@ -39,8 +42,8 @@ export function LabelScanner({ label, onResult, onCancel }: LabelScannerProps) {
     if (scan.source !== "typed") buzz();
     setPending(scan);
   }, []);
-  const onCameraDecode = useCallback((decoded: DecodedText) => show(readDecodedLabel(decoded, "camera")), [show]);
-  const onPhotoDecode = useCallback((decoded: DecodedText) => show(readDecodedLabel(decoded, "photo")), [show]);
+  const onCameraDecode = useCallback((decoded: DecodedText) => show(readDecodedLabel(decoded, "camera", target)), [show, target]);
+  const onPhotoDecode = useCallback((decoded: DecodedText) => show(readDecodedLabel(decoded, "photo", target)), [show, target]);
 
   const camera = useCameraScanner({ elementId, active: !accepted, paused: pending !== null, onDecode: onCameraDecode });
   const cameraFailed = camera.status === "failed";
@@ -68,7 +71,7 @@ export function LabelScanner({ label, onResult, onCancel }: LabelScannerProps) {
             <span aria-hidden="true">✓ </span>Label accepted.
           </p>
         ) : pending ? (
-          <ScanReading scan={pending} onAccept={accept} onRescan={rescan} />
+          <ScanReading scan={pending} target={target} onAccept={accept} onRescan={rescan} />
         ) : null}
       </div>
 
@@ -109,7 +112,11 @@ export function LabelScanner({ label, onResult, onCancel }: LabelScannerProps) {
         </div>
         {camera.torch.problem ? <p className="field-error">{camera.torch.problem}</p> : null}
 
-        <ManualLabelEntry onSubmit={(text) => show(readTypedLabel(text))} />
+        <ManualLabelEntry
+          example={typingExample(target)}
+          what={target.kind === "position" ? "the text printed under the position label's codes" : "the part and serial as printed"}
+          onSubmit={(text) => show(readTypedLabel(text, target))}
+        />
       </div>
 
       {onCancel ? (

@@ -16,4 +16,4 @@ export const LazyLabelScanner = dynamic<LabelScannerProps>(() => import("./label
   ),
 });
 
-export type { LabelScannerProps, LabelScan } from "./label-scanner";
+export type { LabelScannerProps, LabelScan, ScanTarget } from "./label-scanner";

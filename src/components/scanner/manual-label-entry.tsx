@@ -4,7 +4,17 @@
 // types what the label says. Always offered, because cameras fail and labels get scuffed.
 import { useId, useState, type FormEvent } from "react";
 
-export function ManualLabelEntry({ onSubmit }: { onSubmit: (text: string) => void }) {
+export function ManualLabelEntry({
+  onSubmit,
+  example = "P/N 1234-56 S/N AB123",
+  what = "the part and serial as printed",
+}: {
+  onSubmit: (text: string) => void;
+  /** What a typed label looks like, shown in the hint. */
+  example?: string;
+  /** What to type besides a wedge scanner's text. */
+  what?: string;
+}) {
   const id = useId();
   const [text, setText] = useState("");
   const [error, setError] = useState<string | null>(null);
@@ -28,8 +38,7 @@ export function ManualLabelEntry({ onSubmit }: { onSubmit: (text: string) => voi
         Type or wedge-scan the label
       </label>
       <p id={hintId} className="text-[var(--ink-soft)]">
-        The whole text from a wedge scanner, or the part and serial as printed, for example{" "}
-        <span className="num">P/N 1234-56 S/N AB123</span>.
+        The whole text from a wedge scanner, or {what}, for example <span className="num">{example}</span>.
       </p>
       <div className="flex flex-wrap gap-3">
         <input

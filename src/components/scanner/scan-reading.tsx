@@ -1,10 +1,11 @@
 "use client";
 
-// Shows what a scan gave: the part number, serial and CAGE read from it, to accept or scan again;
-// or the parser's refusal (what was found, what is missing) with the way forward.
+// Shows what a scan gave: the part number, serial and CAGE read from a part label, or the aircraft
+// and position read from a position label, to accept or scan again; or the refusal (what was
+// found, what is missing or wrong) with the way forward.
 import { useEffect, useRef } from "react";
 import { showControlCharacters } from "@/domain/labels";
-import { SYMBOLOGY_NAMES, SYNTAX_NAMES, type LabelScan } from "./label-scan";
+import { isPartReading, isPositionReading, PART_LABEL_TARGET, SYMBOLOGY_NAMES, SYNTAX_NAMES, typingExample, type LabelScan, type ScanTarget } from "./label-scan";
 
 const SOURCE_NAMES = { camera: "camera", photo: "photo", typed: "typed text" } as const;
 
@@ -15,7 +16,7 @@ function whereFrom(scan: LabelScan): string {
 
 function Field({ term, value, testId, code = true }: { term: string; value: string | null; testId: string; code?: boolean }) {
   return (
-    <div className="grid grid-cols-[5rem_1fr] items-baseline gap-2 py-1">
+    <div className="grid grid-cols-[6rem_1fr] items-baseline gap-2 py-1">
       <dt className="font-semibold">{term}</dt>
       <dd data-testid={testId} className={!value ? "italic" : code ? "num break-all text-xl font-bold" : ""}>
         {value ?? "not on the label"}
@@ -26,10 +27,12 @@ function Field({ term, value, testId, code = true }: { term: string; value: stri
 
 export function ScanReading({
   scan,
+  target = PART_LABEL_TARGET,
   onAccept,
   onRescan,
 }: {
   scan: LabelScan;
+  target?: ScanTarget;
   onAccept: () => void;
   onRescan: () => void;
 }) {
@@ -38,6 +41,9 @@ export function ScanReading({
   useEffect(() => headingRef.current?.focus(), [scan]);
   const { parsed } = scan;
   const again = scan.source === "typed" ? "Change the text" : "Scan again";
+  const position = isPositionReading(parsed) ? parsed : null;
+  const positionName =
+    position && target.kind === "position" ? (target.positions.find((p) => p.code === position.positionCode)?.label ?? null) : null;
 
   return (
     <section
@@ -46,7 +52,11 @@ export function ScanReading({
       className={`rounded-md border-4 p-4 ${parsed.ok ? "border-[var(--accent)]" : "border-red-700 dark:border-red-400"} bg-[var(--panel)]`}
     >
       <h3 id="scan-reading-heading" ref={headingRef} tabIndex={-1} className="text-xl font-bold">
-        {parsed.ok ? (
+        {position ? (
+          <>
+            <span aria-hidden="true">✓ </span>Position label read: check it is the position in front of you
+          </>
+        ) : parsed.ok ? (
           <>
             <span aria-hidden="true">✓ </span>Label read: check it against the part
           </>
@@ -58,7 +68,14 @@ export function ScanReading({
       </h3>
       <p className="mt-1 text-[var(--ink-soft)]">{whereFrom(scan)}</p>
 
-      {parsed.ok ? (
+      {isPositionReading(parsed) ? (
+        <dl className="mt-3 divide-y divide-[var(--rule)]">
+          <Field term="Aircraft" value={parsed.registration} testId="reading-registration" />
+          <Field term="Position" value={parsed.positionCode} testId="reading-position-code" />
+          <Field term="Name" value={positionName} testId="reading-position-name" code={false} />
+          <Field term="Syntax" value={`${SYNTAX_NAMES[parsed.syntax]}, version ${parsed.version}`} testId="reading-syntax" code={false} />
+        </dl>
+      ) : isPartReading(parsed) ? (
         <>
           <dl className="mt-3 divide-y divide-[var(--rule)]">
             <Field term="P/N" value={parsed.partNumber} testId="reading-part-number" />
@@ -93,10 +110,17 @@ export function ScanReading({
               </ul>
             </>
           ) : null}
-          <p>
-            Scan the label again, or type the part number and serial number as printed, for example{" "}
-            <span className="num">P/N 1234-56 S/N AB123</span>.
-          </p>
+          {target.kind === "position" ? (
+            <p>
+              Scan the position&apos;s own label again, or type the text printed under its codes, like{" "}
+              <span className="num">{typingExample(target)}</span>.
+            </p>
+          ) : (
+            <p>
+              Scan the label again, or type the part number and serial number as printed, for example{" "}
+              <span className="num">{typingExample(target)}</span>.
+            </p>
+          )}
         </div>
       )}
 
@@ -108,7 +132,7 @@ export function ScanReading({
       <div className="mt-4 flex flex-wrap gap-3">
         {parsed.ok ? (
           <button type="button" className="btn btn-primary min-h-glove flex-1 text-lg" onClick={onAccept}>
-            Use this label
+            {position ? "Use this position" : "Use this label"}
           </button>
         ) : null}
         <button

@@ -4,6 +4,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import { SafetyNote } from "@/components/safety/safety-note";
+import { LazyLabelScanner, type LabelScan, type ScanTarget } from "@/components/scanner/lazy-label-scanner";
 import { ApiError, apiFetch } from "@/lib/api-client";
 import { queryKeys } from "@/lib/queries";
 import type { SwapCheckResponse, SwapResponse } from "@/lib/swap-types";
@@ -37,6 +38,8 @@ export function SwapFlow({ registration, positions, initialPositionCode, latest,
   const [positionCode, setPositionCode] = useState<string | null>(initialPositionCode);
   const [safe, setSafe] = useState(false);
   const [filter, setFilter] = useState("");
+  const [scanningPosition, setScanningPosition] = useState(false);
+  const [chosenByLabel, setChosenByLabel] = useState(false);
   const [off, setOff] = useState<UnitReading | null>(null);
   const [on, setOn] = useState<UnitReading | null>(null);
   const [installNothing, setInstallNothing] = useState(false);
@@ -58,6 +61,22 @@ export function SwapFlow({ registration, positions, initialPositionCode, latest,
   const [discrepancySent, setDiscrepancySent] = useState(false);
 
   const position = positions.find((p) => p.code === positionCode) ?? null;
+  const positionTarget = useMemo<ScanTarget>(
+    () => ({ kind: "position", registration, positions: positions.map((p) => ({ code: p.code, label: p.label })) }),
+    [registration, positions],
+  );
+
+  function choosePosition(code: string | null, byLabel = false) {
+    setPositionCode(code);
+    setChosenByLabel(byLabel);
+    setSafe(false); // "made safe" is confirmed for one position's task
+  }
+
+  function acceptPositionLabel(scan: LabelScan) {
+    setScanningPosition(false);
+    // The scanner offers "Use this position" only for a position label of this aircraft and layout.
+    if (scan.parsed.ok && scan.parsed.syntax === "threadline-position") choosePosition(scan.parsed.positionCode, true);
+  }
   const offMismatch = position?.fitted && off && !sameUnit(off, position.fitted);
   const removing = Boolean(position?.fitted);
 
@@ -180,8 +199,14 @@ export function SwapFlow({ registration, positions, initialPositionCode, latest,
           <h2 id="step-heading" className="text-xl font-bold">
             Position
           </h2>
-          {!position ? (
+          {!position && scanningPosition ? (
+            <LazyLabelScanner label="Scan the position label" target={positionTarget} onResult={acceptPositionLabel} onCancel={() => setScanningPosition(false)} />
+          ) : !position ? (
             <>
+              <button type="button" className="btn btn-primary min-h-glove w-full text-lg" onClick={() => setScanningPosition(true)}>
+                <span aria-hidden="true">▥ </span>Scan the position label
+              </button>
+              <p className="text-base">Or find the position and tap it:</p>
               <label className="block">
                 <span className="field-label">Find the position</span>
                 <input className="field-input" value={filter} onChange={(e) => setFilter(e.target.value)} placeholder="B1-EBA2, brake, 32-42…" />
@@ -192,7 +217,7 @@ export function SwapFlow({ registration, positions, initialPositionCode, latest,
                   .slice(0, 40)
                   .map((p) => (
                     <li key={p.code}>
-                      <button type="button" className="panel min-h-glove w-full px-3 py-2 text-left" onClick={() => setPositionCode(p.code)}>
+                      <button type="button" className="panel min-h-glove w-full px-3 py-2 text-left" onClick={() => choosePosition(p.code)}>
                         <span className="num font-bold">{p.code}</span> {p.label}
                       </button>
                     </li>
@@ -201,6 +226,12 @@ export function SwapFlow({ registration, positions, initialPositionCode, latest,
             </>
           ) : (
             <>
+              {chosenByLabel ? (
+                <p className="font-semibold" data-testid="position-chosen-by-label">
+                  <span aria-hidden="true">✓ </span>Chosen by scanning the position label of <span className="num">{registration}</span>{" "}
+                  <span className="num">{position.code}</span>.
+                </p>
+              ) : null}
               <p>
                 On record: {position.fitted ? <span className="num font-bold">{position.fitted.partNumber} · {position.fitted.serialNumber}</span> : "nothing fitted"}
                 {position.independentInspection ? <span className="block font-semibold">⧉ An independent inspection is required at this position.</span> : null}
@@ -211,7 +242,7 @@ export function SwapFlow({ registration, positions, initialPositionCode, latest,
                 The aircraft is made safe for this task as the maintenance manual requires.
               </label>
               {!initialPositionCode ? (
-                <button type="button" className="btn btn-secondary min-h-glove" onClick={() => setPositionCode(null)}>
+                <button type="button" className="btn btn-secondary min-h-glove" onClick={() => choosePosition(null)}>
                   Choose another position
                 </button>
               ) : null}

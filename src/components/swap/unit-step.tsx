@@ -15,6 +15,8 @@ export function UnitStep({ title, reading, onReading }: { title: string; reading
       setRefusal(scan.parsed.message);
       return;
     }
+    // The part-label scanner refuses position labels itself (not_a_part_label); this narrows the type.
+    if (scan.parsed.syntax === "threadline-position") return;
     setRefusal(null);
     onReading({ partNumber: scan.parsed.partNumber, serialNumber: scan.parsed.serialNumber, cage: scan.parsed.cage });
   }

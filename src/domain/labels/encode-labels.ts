@@ -7,6 +7,7 @@
 // it, so such a message always needs its separators.
 import { isValidYyyymmdd } from "./calendar-dates";
 import { EOT, GS, RS } from "./control-characters";
+import { LabelEncodingError } from "./encoding-error";
 import { parseLabel } from "./parse-label";
 import type { LabelElement } from "./types";
 import { isCage } from "./value-formats";
@@ -23,12 +24,7 @@ export interface PartLabelFields {
   expiryDate?: string;
 }
 
-export class LabelEncodingError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = "LabelEncodingError";
-  }
-}
+export { LabelEncodingError };
 
 // Printable ASCII without leading or trailing spaces: what every decoder returns unchanged.
 const PRINTABLE = /^[\x21-\x7E](?:[\x20-\x7E]*[\x21-\x7E])?$/;

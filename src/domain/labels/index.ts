@@ -1,4 +1,5 @@
-// Part-label syntaxes: parsing scanned label text and encoding the labels we print.
+// Label syntaxes: parsing scanned label text and encoding the labels we print. Part labels follow
+// published standards; position labels are Threadline's own syntax (position-label.ts).
 export type {
   LabelElement,
   LabelFailureCode,
@@ -22,3 +23,20 @@ export {
   type PartLabelFields,
 } from "./encode-labels";
 export { EOT, GS, RS, normaliseControlCharacters, showControlCharacters } from "./control-characters";
+export {
+  checkPositionLabel,
+  claimsPositionLabel,
+  encodePositionLabel,
+  parsePositionLabel,
+  POSITION_CODE_MAX,
+  POSITION_LABEL_FORM,
+  POSITION_LABEL_PREFIX,
+  POSITION_LABEL_TAG,
+  POSITION_LABEL_VERSION,
+  REGISTRATION_MAX,
+  type PositionLabelContext,
+  type PositionLabelFields,
+  type PositionLabelParseResult,
+  type PositionLabelReading,
+} from "./position-label";
+export { readPositionStepLabel } from "./position-step";

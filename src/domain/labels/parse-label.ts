@@ -7,6 +7,7 @@ import { interpretElements, refusal } from "./interpret-elements";
 import { readIso15434 } from "./iso15434-message";
 import { readLabelledLabel } from "./labelled-label-reading";
 import { PLAIN_VOCABULARY } from "./plain-label";
+import { positionLabelWherePartWanted } from "./position-label";
 import type { LabelParseResult, ParseLabelOptions } from "./types";
 
 const MAX_INPUT_LENGTH = 4000;
@@ -23,7 +24,7 @@ function gs1Claim(text: string, announcedGs1: boolean): "sure" | "maybe" | "no" 
 }
 
 /**
- * Reads the raw text a scanner returned (camera decoder or keyboard wedge) and finds part number,
+ * Reads the raw text a scanner returned from a part label (camera decoder or keyboard wedge) and finds part number,
  * serial number, CAGE code and the other elements, or says in plain English why it cannot.
  */
 export function parseLabel(raw: string, options: ParseLabelOptions = {}): LabelParseResult {
@@ -33,6 +34,10 @@ export function parseLabel(raw: string, options: ParseLabelOptions = {}): LabelP
   const normalised = normaliseControlCharacters(raw).trim();
   if (normalised === "") return refusal("unrecognised", `The scan is empty. Tried ${SYNTAXES_TRIED}.`, []);
   const { isGs1, rest: text } = splitSymbologyId(normalised);
+
+  // One of our own position labels where a part label is wanted: say so instead of "unrecognised".
+  const positionLabel = positionLabelWherePartWanted(text);
+  if (positionLabel) return positionLabel;
 
   if (text.startsWith("[)>")) return readIso15434(text, options);
 

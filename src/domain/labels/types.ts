@@ -16,7 +16,15 @@ export type LabelFailureCode =
   | "contradictory"
   | "ambiguous"
   | "bad_check_digit"
-  | "malformed";
+  | "malformed"
+  // Position labels (position-label.ts, Threadline's own syntax) and the step that wants one:
+  | "missing_registration"
+  | "missing_position_code"
+  | "unsupported_version"
+  | "not_a_position_label"
+  | "not_a_part_label"
+  | "other_aircraft"
+  | "unknown_position";
 
 export interface LabelReading {
   ok: true;

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
 import { AirframeView } from "@/components/airframe/airframe-view";
@@ -42,6 +43,9 @@ export default async function AirframePage({ params }: Params) {
           {aircraft.hours} h · {formatCycles(aircraft.cycles)} cycles
           <span className="font-sans text-sm"> as of {formatInstant(aircraft.asOf, aircraft.timeZone)}</span>
         </p>
+        <Link href={`/aircraft/${encodeURIComponent(aircraft.registration)}/position-labels`} className="btn btn-secondary min-h-glove sm:ml-auto">
+          Print position labels
+        </Link>
       </header>
       <Suspense>
         <AirframeView

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { encodeAtaTextElements, encodeIso15434Format06ForCode128 } from "@/domain/labels";
+import { LabelLayoutSelect, LabelPageStyle, LabelSheets, type LabelLayout } from "@/components/labels/label-sheets";
 import { PartLabel, type PartLabelContent } from "@/components/labels/part-label";
 import { PrintButton } from "@/components/labels/print-button";
 import { StatusBadge } from "@/components/stock/status-badge";
@@ -12,13 +13,6 @@ import { requireUserFor } from "@/server/page-guard";
 import { getPartLabel } from "@/server/stock";
 
 export const metadata: Metadata = { title: "Part label" };
-
-const LAYOUTS = {
-  label: { name: "One label, 100 × 50 mm", page: "size: 100mm 50mm; margin: 0;", perSheet: 1 },
-  a4: { name: "A4 sheet, 2 × 5 labels", page: "size: A4; margin: 23.5mm 5mm;", perSheet: 10 },
-  letter: { name: "Letter sheet, 2 × 5 labels", page: "size: letter; margin: 14.7mm 7.9mm;", perSheet: 10 },
-} as const;
-type Layout = keyof typeof LAYOUTS;
 
 const LabelQuery = z.object({
   layout: z.enum(["label", "a4", "letter"]).catch("label"),
@@ -31,7 +25,7 @@ export default async function PartLabelPage({ params, searchParams }: { params: 
   const id = Number(partId);
   if (!Number.isSafeInteger(id) || id <= 0) notFound();
   const query = LabelQuery.parse(await searchParams);
-  const layout: Layout = query.layout;
+  const layout: LabelLayout = query.layout;
   const copies = layout === "label" ? query.copies : Math.max(query.copies, 1);
 
   const part = await getPartLabel(id).catch((error) => {
@@ -47,12 +41,10 @@ export default async function PartLabelPage({ params, searchParams }: { params: 
   }
   const content: PartLabelContent = { ...part, ataLine, message, dataMatrixSvg: renderLabelSvg("datamatrix", message) };
   const code128Safe = encodeIso15434Format06ForCode128(part).readableWithoutSeparators;
-  const perSheet = LAYOUTS[layout].perSheet;
-  const sheets = Array.from({ length: Math.ceil(copies / perSheet) }, (_, sheet) => Math.min(perSheet, copies - sheet * perSheet));
 
   return (
     <div className="space-y-4">
-      <style>{`@page { ${LAYOUTS[layout].page} }`}</style>
+      <LabelPageStyle layout={layout} />
       <div className="no-print space-y-3">
         <p>
           <Link href={`/parts/${part.id}`} className="underline">
@@ -66,18 +58,7 @@ export default async function PartLabelPage({ params, searchParams }: { params: 
           <StatusBadge status={part.status} /> {part.bin ? <span>Bin <span className="num">{part.bin}</span></span> : null}
         </p>
         <form method="get" className="flex flex-wrap items-end gap-3">
-          <div>
-            <label htmlFor="label-layout" className="field-label">
-              Paper
-            </label>
-            <select id="label-layout" name="layout" defaultValue={layout} className="field-input">
-              {(Object.keys(LAYOUTS) as Layout[]).map((key) => (
-                <option key={key} value={key}>
-                  {LAYOUTS[key].name}
-                </option>
-              ))}
-            </select>
-          </div>
+          <LabelLayoutSelect id="label-layout" layout={layout} />
           <div>
             <label htmlFor="label-copies" className="field-label">
               Copies
@@ -95,19 +76,7 @@ export default async function PartLabelPage({ params, searchParams }: { params: 
           </p>
         ) : null}
       </div>
-      <div className="label-print-area">
-        {sheets.map((count, sheet) =>
-          layout === "label" ? (
-            Array.from({ length: count }, (_, i) => <PartLabel key={`${sheet}-${i}`} content={content} />)
-          ) : (
-            <div key={sheet} className="label-sheet">
-              {Array.from({ length: count }, (_, i) => (
-                <PartLabel key={i} content={content} />
-              ))}
-            </div>
-          ),
-        )}
-      </div>
+      <LabelSheets layout={layout} labels={Array.from({ length: copies }, (_, i) => <PartLabel key={i} content={content} />)} />
     </div>
   );
 }
