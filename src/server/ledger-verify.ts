@@ -2,6 +2,7 @@ import "server-only";
 import type { PoolConnection } from "mysql2";
 import { ChainVerifier, type ChainBreakReason } from "@/domain/ledger-hash";
 import type { ChainedLedgerEntry, LedgerEntryFields } from "@/domain/ledger-types";
+import { isoFromDatetime } from "@/lib/datetime-text";
 import { LEDGER_ENTRY_COLUMNS } from "@/lib/ledger-rows";
 import { pool } from "./db";
 
@@ -38,7 +39,8 @@ export interface LedgerBroken {
 export type LedgerVerification = LedgerIntact | LedgerBroken;
 
 const nullableNumber = (value: unknown) => (value === null ? null : Number(value));
-const isoOf = (value: unknown) => (value instanceof Date ? value.toISOString() : new Date(String(value) + "Z").toISOString());
+// DATETIME(3) columns are read as text (dateStrings) and rewritten as the ISO instants the hash covers.
+const isoOf = (value: unknown) => isoFromDatetime(value as Date | string);
 
 /** Fills `into` from one array row (columns in LEDGER_ENTRY_COLUMNS order); the verifier keeps no reference, so one object serves every row. */
 function fillEntry(into: ChainedLedgerEntry, row: unknown[]): ChainedLedgerEntry {
@@ -97,19 +99,30 @@ export async function verifyLedger(): Promise<LedgerVerification> {
     const headSeq = Number(head?.last_seq ?? 0);
     const verifier = new ChainVerifier();
     const scratch = {} as ChainedLedgerEntry;
-    const stream = connection
-      .query({ sql: `SELECT ${LEDGER_ENTRY_COLUMNS.join(", ")} FROM ledger_entries WHERE seq <= ? ORDER BY seq`, values: [headSeq], rowsAsArray: true })
-      .stream({ highWaterMark: 512 });
     let lastSeq = 0;
-    let broken = false;
-    for await (const row of stream as AsyncIterable<unknown[]>) {
-      const pushed = verifier.push(fillEntry(scratch, row));
-      lastSeq = scratch.seq;
-      if (!pushed.ok) {
-        broken = true;
-        break; // leaves the stream unread: the connection is destroyed below, not reused
-      }
-    }
+    // Rows are checked in mysql2's own row callback, synchronously: no promise per row (each one is
+    // dear under the framework's async hooks), and the socket is read no faster than rows are checked.
+    const broken = await new Promise<boolean>((resolve, reject) => {
+      let settled = false;
+      const select = connection.query({ sql: `SELECT ${LEDGER_ENTRY_COLUMNS.join(", ")} FROM ledger_entries WHERE seq <= ? ORDER BY seq`, values: [headSeq], rowsAsArray: true, dateStrings: true });
+      select.on("result", (row) => {
+        if (settled) return;
+        const pushed = verifier.push(fillEntry(scratch, row as unknown as unknown[]));
+        lastSeq = scratch.seq;
+        if (!pushed.ok) {
+          settled = true;
+          resolve(true); // the rest stays unread: the connection is destroyed below, not reused
+        }
+      });
+      select.on("error", (error) => {
+        if (!settled) reject(error);
+        settled = true;
+      });
+      select.on("end", () => {
+        if (!settled) resolve(false);
+        settled = true;
+      });
+    });
     if (!broken) {
       await query(connection, "COMMIT");
       reusable = true;
