@@ -9,12 +9,12 @@ import type { RemovalDbRow } from "./removals";
 import { removalsExportSql } from "./removals-sql";
 
 // The removals export streams straight from a database cursor into the HTTP response: rows arrive
-// from mysql2's query stream, are written as CSV with papaparse ~5,000 at a time, and the query is
+// from mysql2's query stream, are written as CSV with papaparse 1,000 at a time, and the query is
 // paused whenever the client reads slower than the database sends. At most a chunk or two of rows
-// is ever held in memory, however long the export (see the shared performance notes: about 146,000
-// rows/s and a flat ~110 MB peak for a million rows).
+// is ever held in memory, however long the export: `npm run bench` measures the server's peak memory
+// growth over a whole-fleet export (a few MB once the route is loaded).
 
-export const CSV_CHUNK_ROWS = 5_000;
+export const CSV_CHUNK_ROWS = 1_000;
 
 const minutesText = (value: unknown) => (value === null || value === undefined || Number(value) < 0 ? "" : formatFlightTime(Number(value)));
 const plain = (value: unknown) => (value === null || value === undefined ? "" : value);
@@ -126,6 +126,6 @@ export async function streamQueryAsCsv(input: {
       },
     },
     // Queue up to about two chunks' worth of bytes before pausing the query (a chunk is roughly 0.5 to 1 MB).
-    new ByteLengthQueuingStrategy({ highWaterMark: 2 * 1024 * 1024 }),
+    new ByteLengthQueuingStrategy({ highWaterMark: 512 * 1024 }),
   );
 }
