@@ -32,6 +32,11 @@ const CLIENTS = 8;
 /** The swap page's JavaScript before the scanner loads, gzip: 200 KB. */
 const SWAP_PAGE_JS_GOAL = 200_000;
 
+// Every request asks for an uncompressed answer: `next start` gzips for a client that accepts it and
+// the bare baseline does not, so compression (a reverse proxy's job in production) stays out of
+// the comparison; both sides then send the same bytes.
+const PLAIN = { "accept-encoding": "identity" } as const;
+
 const tinyPdf = (text: string) => Buffer.from(`%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\n% ${text}\ntrailer << /Root 1 0 R >>\n%%EOF\n`);
 const hm = (minutes: number) => `${Math.floor(minutes / 60)}:${String(minutes % 60).padStart(2, "0")}`;
 
@@ -101,7 +106,7 @@ async function main() {
     };
     const [technician, auditor, stores, reliability, admin] = [await signIn("technician"), await signIn("auditor"), await signIn("stores"), await signIn("reliability"), await signIn("admin")];
     const get = async (url: string, cookie: string) => {
-      const response = await fetch(url, { headers: { cookie } });
+      const response = await fetch(url, { headers: { ...PLAIN, cookie } });
       const text = await response.text();
       if (response.status !== 200) throw new Error(`GET ${url}: ${response.status} ${text.slice(0, 200)}`);
       return text;
@@ -205,13 +210,13 @@ async function swapFigures(sides: Sides, cookies: { technician: string; stores: 
       removed: { partNumber: plan.partNumber, serialNumber: plan.offSerial }, installed: { partNumber: plan.partNumber, serialNumber: plan.onSerial },
       removalType: "scheduled", reason: "Planned rotation (bench)", workOrder: "WO-BENCH", taskReference: "bench", testResult: "Operational test: passed",
     };
-    const response = await fetch(`${sides.appUrl}/api/swaps`, { method: "POST", headers: { cookie: cookies.technician, "content-type": "application/json", "idempotency-key": `bench-${plan.onSerial}` }, body: JSON.stringify(body) });
+    const response = await fetch(`${sides.appUrl}/api/swaps`, { method: "POST", headers: { ...PLAIN, cookie: cookies.technician, "content-type": "application/json", "idempotency-key": `bench-${plan.onSerial}` }, body: JSON.stringify(body) });
     if (response.status !== 201) throw new Error(`swap ${i}: ${response.status} ${await response.text()}`);
   };
   const baseSwap = async (i: number) => {
     const plan = basePlans[i];
     const body: BaselineSwap = { registration: plan.registration, positionCode: plan.positionCode, offPartId: plan.offPartId, onPartId: plan.onPartId, minutes: plan.minutes, cycles: plan.cycles, idempotencyKey: `base-${plan.onSerial}` };
-    const response = await fetch(`${sides.baseUrl}/api/swaps`, { method: "POST", headers: { cookie: cookies.technician, "content-type": "application/json" }, body: JSON.stringify(body) });
+    const response = await fetch(`${sides.baseUrl}/api/swaps`, { method: "POST", headers: { ...PLAIN, cookie: cookies.technician, "content-type": "application/json" }, body: JSON.stringify(body) });
     if (response.status !== 200) throw new Error(`baseline swap ${i}: ${response.status} ${await response.text()}`);
   };
 
@@ -241,7 +246,7 @@ async function exportFigures(sides: Sides, input: { reliability: string; pid: nu
   let rows = 0;
   const started = performance.now();
   const { peak } = await peakWhile(() => treeRss(input.pid), 50, async () => {
-    const response = await fetch(`${sides.appUrl}/api/exports/removals.csv`, { headers: { cookie: input.reliability }, signal: AbortSignal.timeout(900_000) });
+    const response = await fetch(`${sides.appUrl}/api/exports/removals.csv`, { headers: { ...PLAIN, cookie: input.reliability }, signal: AbortSignal.timeout(900_000) });
     if (response.status !== 200) throw new Error(`CSV export: ${response.status}`);
     const reader = response.body!.getReader();
     for (;;) {
@@ -276,7 +281,7 @@ async function exportFigures(sides: Sides, input: { reliability: string; pid: nu
 /** The ledger check over every entry against mysql2 merely streaming the same rows. */
 async function verifyFigure(sides: Sides, admin: string): Promise<Figure> {
   const started = performance.now();
-  const response = await fetch(`${sides.appUrl}/api/ledger/verify`, { headers: { cookie: admin }, signal: AbortSignal.timeout(900_000) });
+  const response = await fetch(`${sides.appUrl}/api/ledger/verify`, { headers: { ...PLAIN, cookie: admin }, signal: AbortSignal.timeout(900_000) });
   const answer = (await response.json()) as { ok: boolean; entries: number };
   const appSeconds = (performance.now() - started) / 1000;
   if (!answer.ok) throw new Error(`the ledger check failed: ${JSON.stringify(answer)}`);
