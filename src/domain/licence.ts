@@ -26,9 +26,17 @@ export function licenceStatus(expiresOn: string | null, today: string): LicenceS
   return "valid";
 }
 
+// Building an Intl.DateTimeFormat costs far more than using one; keep one per zone.
+const dayFormats = new Map<string, Intl.DateTimeFormat>();
+
 /** The calendar date (YYYY-MM-DD) of an instant in an IANA time zone. */
 export function dateInZone(instant: Date, timeZone = "UTC"): string {
-  const parts = new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).formatToParts(instant);
+  let format = dayFormats.get(timeZone);
+  if (!format) {
+    format = new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" });
+    dayFormats.set(timeZone, format);
+  }
+  const parts = format.formatToParts(instant);
   const get = (type: string) => parts.find((part) => part.type === type)?.value ?? "";
   return `${get("year")}-${get("month")}-${get("day")}`;
 }

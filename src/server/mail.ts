@@ -13,8 +13,8 @@ export interface OutgoingMail {
   text: string;
 }
 
-export async function queueMail(trx: Trx, mail: OutgoingMail | OutgoingMail[]): Promise<void> {
-  const now = new Date();
+/** Queues mail in the caller's transaction; `now` is the caller's clock (the change's own time). */
+export async function queueMail(trx: Trx, mail: OutgoingMail | OutgoingMail[], now: Date = new Date()): Promise<void> {
   const rows = [mail].flat().map((m) => ({
     to_address: m.to,
     subject: m.subject.slice(0, 255),
@@ -71,6 +71,23 @@ export async function sendDueMail(limit = 25): Promise<number> {
     globalForMail.threadlineOutboxBusy = false;
   }
   return sent;
+}
+
+/**
+ * Withdraws unsent mail queued after the outbox row `afterId`, without sending it: the rows stay, in
+ * the state the outbox leaves a mail in after its last failed attempt, with the reason as the error.
+ */
+export async function withdrawQueuedMail(input: { afterId: number; reason: string }, trx: Trx = db()): Promise<number> {
+  return trx("mail_outbox")
+    .where("id", ">", input.afterId)
+    .whereNull("sent_at")
+    .update({ attempts: MAX_ATTEMPTS, last_error: input.reason.slice(0, 500) });
+}
+
+/** The id of the newest outbox row (0 when empty), to withdraw what is queued after it. */
+export async function lastOutboxId(trx: Trx = db()): Promise<number> {
+  const row = await trx("mail_outbox").max({ id: "id" }).first();
+  return Number(row?.id ?? 0);
 }
 
 /** Call after the transaction that queued mail has committed. */

@@ -42,20 +42,38 @@ async function storedAnswer(trx: Knex | Knex.Transaction, key: string, digest: s
 
 const RETRYABLE = new Set(["ER_LOCK_DEADLOCK", "ER_LOCK_WAIT_TIMEOUT", "ER_CHECKREAD"]);
 
+export interface RecordSwapInput {
+  swap: SwapInput;
+  rawBody: unknown;
+  idempotencyKey: string;
+  actor: User;
+  /** The time of recording: the licence, the future-date and the life checks are judged at it, and it is the entries' recordedAt. */
+  now?: Date;
+  /** The swap's id; a new UUID unless the caller records a swap whose id is already known (the demo history). */
+  id?: string;
+  /**
+   * The caller's transaction, for recording many swaps as one unit (the demo history): the swap is
+   * written in it with the same checks, but not retried, and nothing follows the write here (no
+   * outbox kick, no alert check): the caller commits, and its mail waits in the outbox until then.
+   */
+  trx?: Knex.Transaction;
+}
+
 /**
  * Records one off/on change as one transaction: lock and check the current state, then write
  * fitted, parts, mail and finally both ledger entries (the head lock is taken last and held briefly).
  * A retry with the same Idempotency-Key returns the first answer.
  */
-export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; idempotencyKey: string; actor: User; now?: Date }): Promise<SwapResult> {
+export async function recordSwap(input: RecordSwapInput): Promise<SwapResult> {
   const now = input.now ?? new Date();
   const digest = requestDigest(input.rawBody);
-  const earlier = await storedAnswer(db(), input.idempotencyKey, digest);
+  const earlier = await storedAnswer(input.trx ?? db(), input.idempotencyKey, digest);
   if (earlier) return earlier;
   assertLicenceValid(input.actor, now);
   if (input.swap.performedAt.getTime() > now.getTime() + 5 * 60_000) {
     throw new AppError("invalid", "The swap cannot be dated in the future.", "invalid", { performedAt: "is in the future" });
   }
+  if (input.trx) return writeSwap(input.trx, input, digest, now);
 
   for (let attempt = 1; ; attempt++) {
     try {
@@ -79,7 +97,7 @@ export async function recordSwap(input: { swap: SwapInput; rawBody: unknown; ide
   }
 }
 
-async function writeSwap(trx: Knex.Transaction, input: { swap: SwapInput; idempotencyKey: string; actor: User }, digest: string, now: Date): Promise<SwapResult> {
+async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: string, now: Date): Promise<SwapResult> {
   const { swap, actor } = input;
   const plan = await planSwap(trx, swap, { lock: true, now });
   // A retry with the same key (the same body, so the same aircraft) may have committed while we
@@ -87,7 +105,9 @@ async function writeSwap(trx: Knex.Transaction, input: { swap: SwapInput; idempo
   // first plain read, which planSwap makes after the aircraft lock is granted. A locking read here
   // would take a gap lock on the key index that concurrent swaps on other aircraft then deadlock on
   // when they insert their keys. The same key with another body (another aircraft, not serialised
-  // by that lock) is caught by the unique key on insert and answered in recordSwap.
+  // by that lock) is caught by the unique key on insert and answered in recordSwap. (Inside a
+  // caller's transaction, as in the demo seed's replay, the snapshot may be older; that replay is
+  // the only writer.)
   const raced = await storedAnswer(trx, input.idempotencyKey, digest);
   if (raced) return raced;
   const refusal = firstFailure(plan);
@@ -98,6 +118,7 @@ async function writeSwap(trx: Knex.Transaction, input: { swap: SwapInput; idempo
     aircraftId: plan.aircraft.id,
     positionId: plan.position.id,
     occurredAt: performedAt.toISOString(),
+    recordedAt: now,
     recordedBy: actor.id,
     aircraftMinutes: swap.aircraftHours,
     aircraftCycles: swap.aircraftCycles,
@@ -159,6 +180,7 @@ async function writeSwap(trx: Knex.Transaction, input: { swap: SwapInput; idempo
           `Recorded by: ${actor.name}${actor.licenceNumber ? ` (${actor.licenceNumber})` : ""}`,
         ].join("\n"),
       })),
+      now,
     );
   }
 
@@ -199,7 +221,7 @@ async function writeSwap(trx: Knex.Transaction, input: { swap: SwapInput; idempo
   const installedSeq = plan.installedUnit ? entries[entries.length - 1].seq : null;
   if (installedSeq) await trx("fitted").where({ aircraft_id: plan.aircraft.id, position_id: plan.position.id }).update({ installed_seq: installedSeq });
 
-  const id = randomUUID();
+  const id = input.id ?? randomUUID();
   const result: SwapResult = {
     status: 201,
     body: {
@@ -250,10 +272,11 @@ export async function checkSwap(swap: SwapCheckInput, now = new Date()): Promise
 }
 
 /** An inspector's countersignature of a swap at a position that requires an independent inspection. */
-export async function countersignSwap(input: { swapId: string; inspector: User; now?: Date }) {
+export async function countersignSwap(input: { swapId: string; inspector: User; now?: Date; trx?: Knex.Transaction }) {
   const now = input.now ?? new Date();
   assertLicenceValid(input.inspector, now);
-  return db().transaction(async (trx) => {
+  const inTransaction = <T>(work: (trx: Knex.Transaction) => Promise<T>) => (input.trx ? work(input.trx) : db().transaction(work));
+  return inTransaction(async (trx) => {
     const row = await trx("swaps as s").join("positions as p", "p.id", "s.position_id").where("s.id", input.swapId).forUpdate().first("s.*", "p.requires_independent_inspection");
     if (!row) throw new AppError("not_found", `Swap ${input.swapId} was not found.`);
     if (!row.requires_independent_inspection) throw new AppError("conflict", "This position does not require an independent inspection.", "inspection_not_required");

@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
-import { http, signInAs, testDb } from "../support/api";
+import { dbFingerprint } from "../integrity/integrity-support";
+import { http, signInAs, testDb, testEnv } from "../support/api";
 import { fittedProjection, fittedRebuiltFromLedger, verifyLedger } from "../support/ledger";
 import { waitForMail } from "../support/mail-inbox";
 import { fittedAt, latestTotals, postSwap, spares, swapBody } from "../support/swaps";
@@ -173,6 +174,48 @@ describe("POST /api/swaps", () => {
     expect(new Set(responses.map((r) => r.body.swap.id)).size).toBe(1);
     expect(await testDb()("swaps").where({ idempotency_key: key }).count({ n: "*" })).toEqual([{ n: 1 }]);
     expect(await installedEntries()).toEqual([{ n: Number(before.n) + 1 }]);
+  });
+});
+
+describe("recordSwap in the caller's transaction (how the demo history is recorded)", () => {
+  it("writes with the same checks, the caller's clock and swap id, and leaves nothing when the caller rolls back", async () => {
+    // The server module reads its connection from the environment on first use.
+    Object.assign(process.env, testEnv());
+    const { recordSwap } = await import("../../src/server/swaps");
+    const { db } = await import("../../src/server/db");
+    const { SwapSchema } = await import("../../src/lib/schemas/swaps");
+    const { demoActor } = await import("../../seeds/replay/support");
+    const actor = await demoActor(testDb(), "technician");
+    const totals = await latestTotals("Q-FRBB");
+    const off = await fittedAt("Q-FRBB", "B3-EBA2");
+    const [on] = await spares(ACTUATORS, 1);
+    const now = new Date(Date.now() - 60 * 60_000);
+    const body = swapBody({ registration: "Q-FRBB", positionCode: "B3-EBA2", minutes: totals.minutes, cycles: totals.cycles, removed: off, installed: on, performedAt: new Date(now.getTime() - 20 * 60_000).toISOString() });
+    const input = { swap: SwapSchema.parse(body), rawBody: body, idempotencyKey: randomUUID(), actor, now, id: randomUUID() };
+
+    try {
+      const before = await dbFingerprint();
+      await expect(db().transaction(async (trx) => {
+        await recordSwap({ ...input, trx });
+        throw new Error("the caller rolls back");
+      })).rejects.toThrow("the caller rolls back");
+      expect(await dbFingerprint()).toBe(before);
+      // A refusal comes out of the caller's transaction as the same 409.
+      const refused = db().transaction((trx) => recordSwap({ ...input, idempotencyKey: randomUUID(), swap: { ...input.swap, removed: { ...off, serialNumber: "NOT-THIS-ONE" } }, trx }));
+      await expect(refused).rejects.toMatchObject({ status: 409, code: "position_mismatch" });
+
+      const result = await db().transaction((trx) => recordSwap({ ...input, trx }));
+      expect(result.body.swap.id).toBe(input.id);
+      expect((await fittedAt("Q-FRBB", "B3-EBA2")).serialNumber).toBe(on.serialNumber);
+      const entries = await testDb()("ledger_entries").whereIn("seq", result.body.entries.map((e) => e.seq));
+      expect(entries.map((e) => new Date(e.recorded_at).toISOString())).toEqual([now.toISOString(), now.toISOString()]);
+      const mail = await testDb()("mail_outbox").where("subject", "like", `%${off.serialNumber} from Q-FRBB B3-EBA2%`).orderBy("id", "desc").first();
+      expect(new Date(mail.created_at).toISOString()).toBe(now.toISOString());
+      expect((await verifyLedger()).ok).toBe(true);
+      expect(await fittedProjection()).toEqual(await fittedRebuiltFromLedger());
+    } finally {
+      await db().destroy();
+    }
   });
 });
 

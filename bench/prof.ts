@@ -1,0 +1,21 @@
+// temporary profiling aid
+import { spawn } from "node:child_process";
+import path from "node:path";
+import { freePort, stopChild, waitForPort } from "../scripts/lib/fakes";
+import { APP_DB_PASSWORD, APP_DB_USER, projectRoot, S3_BUCKET } from "../scripts/lib/services";
+import { BENCH } from "./fleet-shape";
+const appPort = await freePort();
+const appUrl = `http://127.0.0.1:${appPort}`;
+const env = { DB_HOST: "127.0.0.1", DB_PORT: String(BENCH.dbPort), DB_NAME: BENCH.database, DB_USER: APP_DB_USER, DB_PASSWORD: APP_DB_PASSWORD, S3_ENDPOINT: "http://127.0.0.1:1", S3_BUCKET, S3_REGION: "us-east-1", S3_ACCESS_KEY_ID: "S3RVER", S3_SECRET_ACCESS_KEY: "S3RVER", SMTP_HOST: "127.0.0.1", SMTP_PORT: "1", MAIL_FROM: "x <a@b.test>", MAIL_INBOX_URL: "http://127.0.0.1:1", APP_URL: appUrl };
+const app = spawn(process.execPath, ["--cpu-prof", "--cpu-prof-dir=/work/lead/prof", path.join(projectRoot, "node_modules", "next", "dist", "bin", "next"), "start", "-p", String(appPort), "-H", "127.0.0.1"], { cwd: projectRoot, stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, ...env, NODE_ENV: "production" } });
+await waitForPort(appPort, 60_000);
+const r = await fetch(`${appUrl}/api/session`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email: `${process.env.ROLE ?? "auditor"}@demo.threadline.test`, password: "threadline-demo" }) });
+const cookie = r.headers.getSetCookie().find((c) => c.startsWith("threadline_session="))!.split(";")[0];
+const url = process.argv[2] ?? "/api/parts/ID/trace";
+const t0 = performance.now();
+const N = Number(process.env.N ?? 600);
+for (let i = 0; i < N; i++) await fetch(appUrl + url.replace("ID", String(1 + ((i * 7919) % 100000))), { headers: { cookie } }).then((x) => x.text());
+console.log("ms/req", (performance.now() - t0) / N);
+app.kill("SIGINT");
+await new Promise((res) => app.on("exit", res));
+await new Promise((res) => setTimeout(res, 3000));
