@@ -63,17 +63,39 @@ export async function planSwap(trx: Knex | Knex.Transaction, input: SwapCheckInp
   const aircraftQuery = trx("aircraft").where({ registration: input.registration }).first("id", "registration", "aircraft_type_id");
   const aircraft = lock ? await aircraftQuery.forUpdate() : await aircraftQuery;
   if (!aircraft) throw new AppError("not_found", `Aircraft ${input.registration} is not in the fleet.`);
-  const position = await trx("positions").where({ aircraft_type_id: aircraft.aircraft_type_id, code: input.positionCode.toUpperCase() }).first();
+  // The position, the unit fitted there and the aircraft's latest snapshot, in one plain read (made
+  // after the aircraft lock when recording, like the three reads it stands for).
+  const latest = () => trx("utilization").where({ aircraft_id: aircraft.id }).orderBy("as_of", "desc").limit(1);
+  const position = await trx("positions as p")
+    .leftJoin("fitted as f", (on) => on.on("f.position_id", "=", "p.id").andOnVal("f.aircraft_id", "=", aircraft.id))
+    .leftJoin("parts as pt", "pt.id", "f.part_id")
+    .leftJoin("part_numbers as pn", "pn.id", "pt.part_number_id")
+    .where({ "p.aircraft_type_id": aircraft.aircraft_type_id, "p.code": input.positionCode.toUpperCase() })
+    .first(
+      "p.id",
+      "p.code",
+      "p.label",
+      "p.requires_independent_inspection",
+      "p.ata_chapter",
+      "f.part_id",
+      "f.installed_seq",
+      "f.aircraft_minutes_at_install",
+      "f.aircraft_cycles_at_install",
+      "f.tsn_minutes_at_install",
+      "f.csn_at_install",
+      "f.tso_minutes_at_install",
+      "f.cso_at_install",
+      "pt.serial_number",
+      "pn.part_number",
+      "pn.cage",
+      trx.raw("? as latest_as_of", [latest().select("as_of")]),
+      trx.raw("? as latest_minutes", [latest().select("total_minutes")]),
+      trx.raw("? as latest_cycles", [latest().select("total_cycles")]),
+    );
   if (!position) {
     throw new AppError("invalid", `${input.registration} has no position ${input.positionCode}.`, "invalid", { positionCode: `no such position on ${input.registration}` });
   }
-
-  const fittedRow = await trx("fitted as f")
-    .join("parts as pt", "pt.id", "f.part_id")
-    .join("part_numbers as pn", "pn.id", "pt.part_number_id")
-    .where({ "f.aircraft_id": aircraft.id, "f.position_id": position.id })
-    .first("f.*", "pt.serial_number", "pn.part_number", "pn.cage");
-  const latest = await trx("utilization").where({ aircraft_id: aircraft.id }).orderBy("as_of", "desc").first();
+  const fittedRow = position.part_id === null ? null : position;
 
   const checks: SwapCheck[] = [];
   const plan: SwapPlan = {
@@ -104,7 +126,7 @@ export async function planSwap(trx: Knex | Knex.Transaction, input: SwapCheckInp
       : null,
     removedUnit: null,
     installedUnit: null,
-    latestSnapshot: latest ? { asOf: new Date(latest.as_of), minutes: Number(latest.total_minutes), cycles: Number(latest.total_cycles) } : null,
+    latestSnapshot: position.latest_as_of === null ? null : { asOf: new Date(position.latest_as_of), minutes: Number(position.latest_minutes), cycles: Number(position.latest_cycles) },
     checks,
   };
 
@@ -161,8 +183,9 @@ async function judgeInstalledUnit(trx: Knex | Knex.Transaction, ref: UnitRef, pl
   const totals = totalsOfRow(unit);
   plan.installedUnit = { id: unit.id, partNumber: unit.part_number, serialNumber: unit.serial_number, cage: unit.cage, totals, documentId: null };
 
+  // Three plain reads in one statement: eligibility, where else the unit is fitted, its latest release.
   // Eligible: the position lists the P/N, or an alternate that the P/N may replace.
-  const eligible = await trx("position_eligibility as pe")
+  const eligibility = trx("position_eligibility as pe")
     .where("pe.position_id", plan.position.id)
     .andWhere((where) =>
       where
@@ -170,16 +193,25 @@ async function judgeInstalledUnit(trx: Knex | Knex.Transaction, ref: UnitRef, pl
         .orWhereExists(trx("part_interchange as pi").whereRaw("pi.part_number_id = pe.part_number_id").andWhere("pi.alternate_part_number_id", unit.pn_id))
         .orWhereExists(trx("part_interchange as pi").whereRaw("pi.alternate_part_number_id = pe.part_number_id").andWhere("pi.part_number_id", unit.pn_id).andWhere("pi.two_way", true)),
     )
-    .first("pe.part_number_id");
+    .select("pe.part_number_id");
+  const elsewhere = () => trx("fitted as f").join("aircraft as a", "a.id", "f.aircraft_id").join("positions as p", "p.id", "f.position_id").where("f.part_id", unit.id).limit(1);
+  // A release certificate on file: the unit's latest receipt or return from repair cites a document.
+  const lastRelease = trx("ledger_entries").where({ part_id: unit.id }).whereIn("kind", ["received", "repaired"]).orderBy("seq", "desc").limit(1).select("document_id");
+  const facts = await trx.first(
+    trx.raw("exists ? as eligible", [eligibility]),
+    trx.raw("? as fitted_registration", [elsewhere().select("a.registration")]),
+    trx.raw("? as fitted_code", [elsewhere().select("p.code")]),
+    trx.raw("? as release_document_id", [lastRelease]),
+  );
+
   checks.push(
-    eligible
+    Number(facts.eligible) === 1
       ? { name: "eligibility", level: "ok", message: `P/N ${unit.part_number} is eligible at ${plan.position.code}.` }
       : { name: "eligibility", level: "fail", code: "not_eligible", message: `P/N ${unit.part_number} is not eligible at ${plan.position.code} (${plan.position.label}), nor an approved alternate of an eligible P/N.` },
   );
 
-  const fittedElsewhere = await trx("fitted as f").join("aircraft as a", "a.id", "f.aircraft_id").join("positions as p", "p.id", "f.position_id").where("f.part_id", unit.id).first("a.registration", "p.code");
-  if (fittedElsewhere) {
-    checks.push({ name: "status", level: "fail", code: "part_fitted_elsewhere", message: `S/N ${unit.serial_number} is recorded as fitted on ${fittedElsewhere.registration} at ${fittedElsewhere.code}. It must be removed there first.` });
+  if (facts.fitted_registration !== null) {
+    checks.push({ name: "status", level: "fail", code: "part_fitted_elsewhere", message: `S/N ${unit.serial_number} is recorded as fitted on ${facts.fitted_registration} at ${facts.fitted_code}. It must be removed there first.` });
   } else if (unit.status !== "serviceable") {
     const word = String(unit.status).replace("_", " ");
     checks.push({ name: "status", level: "fail", code: "part_not_serviceable", message: `S/N ${unit.serial_number} is ${word}, not serviceable.${unit.status === "quarantined" ? " Ask quality to release it before installing." : " Only a serviceable unit may be fitted."}` });
@@ -187,11 +219,9 @@ async function judgeInstalledUnit(trx: Knex | Knex.Transaction, ref: UnitRef, pl
     checks.push({ name: "status", level: "ok", message: `S/N ${unit.serial_number} is serviceable.` });
   }
 
-  // A release certificate on file: the unit's latest receipt or return from repair cites a document.
-  const lastRelease = await trx("ledger_entries").where({ part_id: unit.id }).whereIn("kind", ["received", "repaired"]).orderBy("seq", "desc").first("seq", "document_id");
-  plan.installedUnit.documentId = lastRelease?.document_id ?? null;
+  plan.installedUnit.documentId = num(facts.release_document_id);
   checks.push(
-    lastRelease?.document_id
+    facts.release_document_id !== null
       ? { name: "certificate", level: "ok", message: "A release certificate is on file for this unit." }
       : { name: "certificate", level: "fail", code: "part_not_serviceable", message: `No release certificate is on file for S/N ${unit.serial_number}. Stores must attach the certificate before it can be fitted.` },
   );

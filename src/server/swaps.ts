@@ -61,7 +61,8 @@ export interface RecordSwapInput {
 
 /**
  * Records one off/on change as one transaction: lock and check the current state, then write
- * fitted, parts, mail and finally both ledger entries (the head lock is taken last and held briefly).
+ * fitted (the removal), parts, mail and both ledger entries, and last the new fitted row with its
+ * seq (the head lock is taken late and held briefly).
  * A retry with the same Idempotency-Key returns the first answer.
  */
 export async function recordSwap(input: RecordSwapInput): Promise<SwapResult> {
@@ -141,21 +142,7 @@ async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: 
     });
   }
   if (plan.installedUnit) {
-    const totals = plan.installedUnit.totals;
     await trx("parts").where({ id: plan.installedUnit.id }).update({ status: "installed", bin: null, updated_at: now });
-    await trx("fitted").insert({
-      aircraft_id: plan.aircraft.id,
-      position_id: plan.position.id,
-      part_id: plan.installedUnit.id,
-      installed_seq: 0, // set below once the ledger has numbered the entry
-      installed_at: performedAt,
-      aircraft_minutes_at_install: swap.aircraftHours,
-      aircraft_cycles_at_install: swap.aircraftCycles,
-      tsn_minutes_at_install: totals.tsnMinutes,
-      csn_at_install: totals.csn,
-      tso_minutes_at_install: totals.tsoMinutes,
-      cso_at_install: totals.cso,
-    });
   }
   // The snapshot becomes the aircraft's newest utilisation when it is newer than the last one.
   if (!plan.latestSnapshot || performedAt > plan.latestSnapshot.asOf) {
@@ -219,7 +206,24 @@ async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: 
   ]);
   const removedSeq = plan.removedUnit ? entries[0].seq : null;
   const installedSeq = plan.installedUnit ? entries[entries.length - 1].seq : null;
-  if (installedSeq) await trx("fitted").where({ aircraft_id: plan.aircraft.id, position_id: plan.position.id }).update({ installed_seq: installedSeq });
+  // The fitted row carries the installation's seq, so it is written once the ledger has numbered it
+  // (one statement under the head lock, as the update of a placeholder seq was).
+  if (plan.installedUnit && installedSeq) {
+    const totals = plan.installedUnit.totals;
+    await trx("fitted").insert({
+      aircraft_id: plan.aircraft.id,
+      position_id: plan.position.id,
+      part_id: plan.installedUnit.id,
+      installed_seq: installedSeq,
+      installed_at: performedAt,
+      aircraft_minutes_at_install: swap.aircraftHours,
+      aircraft_cycles_at_install: swap.aircraftCycles,
+      tsn_minutes_at_install: totals.tsnMinutes,
+      csn_at_install: totals.csn,
+      tso_minutes_at_install: totals.tsoMinutes,
+      cso_at_install: totals.cso,
+    });
+  }
 
   const id = input.id ?? randomUUID();
   const result: SwapResult = {

@@ -4,9 +4,11 @@
 // src/server/ledger.ts appendLedgerEntries does: inside one transaction that locks the head row,
 // chaining from ledger_head with chainEntry, so the ledger check still passes afterwards.
 import { createHash, randomUUID } from "node:crypto";
+import { PutObjectCommand } from "@aws-sdk/client-s3";
 import { chainEntry } from "../../src/domain/ledger-hash";
 import type { LedgerEntryFields } from "../../src/domain/ledger-types";
-import { testDb } from "./api";
+import { testS3 } from "../api/receipts-fixtures";
+import { testDb, testEnv } from "./api";
 
 export type TestEntry = Omit<LedgerEntryFields, "seq" | "recordedAt" | "aircraftId" | "positionId" | "aircraftMinutes" | "aircraftCycles" | "tsoMinutes" | "cso" | "removalType" | "reason" | "workOrder" | "taskReference" | "testResult" | "documentId" | "correctsSeq" | "details"> &
   Partial<LedgerEntryFields>;
@@ -66,6 +68,8 @@ export async function receiveUnitForTest(input: { partNumber: string; serialNumb
     }
     const bytes = Buffer.from(`test certificate for ${input.partNumber} ${input.serialNumber} ${randomUUID()}`);
     const tracking = `TC-${randomUUID().slice(0, 13)}`;
+    // The file is stored too, so every certificate row has its object (as the receipts suite checks).
+    await testS3().send(new PutObjectCommand({ Bucket: testEnv().S3_BUCKET, Key: `certificates/test-${tracking}.pdf`, Body: bytes, ContentType: "application/pdf" }));
     const [documentId] = await trx("documents").insert({
       kind: "release_certificate", form_type: "easa_form_1", tracking_number: tracking, status_work: "inspected_tested", issuer_name: "Invented Test Shop",
       issuer_approval: "QT.145.0001", issued_on: now.toISOString().slice(0, 10), object_key: `certificates/test-${tracking}.pdf`,
