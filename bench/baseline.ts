@@ -134,27 +134,35 @@ async function swapTransaction(pool: mysql.Pool, user: Row, input: BaselineSwap)
   try {
     await conn.query("BEGIN");
     const [aircraft] = await rows(conn, "SELECT id, registration, aircraft_type_id FROM aircraft WHERE registration = ? LIMIT 1 FOR UPDATE", [input.registration]);
-    const [position] = await rows(conn, "SELECT * FROM positions WHERE aircraft_type_id = ? AND code = ? LIMIT 1", [aircraft.aircraft_type_id, input.positionCode]);
-    const [fitted] = await rows(
+    // The position, its fitted unit and the latest snapshot in one read, as src/server/swap-checks.ts reads them.
+    const latest = (column: string) => `(select \`${column}\` from \`utilization\` where \`aircraft_id\` = ? order by \`as_of\` desc limit ?)`;
+    const [position] = await rows(
       conn,
-      "SELECT f.*, pt.serial_number, pn.part_number, pn.cage FROM fitted f JOIN parts pt ON pt.id = f.part_id JOIN part_numbers pn ON pn.id = pt.part_number_id WHERE f.aircraft_id = ? AND f.position_id = ? LIMIT 1",
-      [aircraft.id, position.id],
+      `SELECT p.id, p.code, p.label, p.requires_independent_inspection, p.ata_chapter, f.part_id, f.installed_seq, f.aircraft_minutes_at_install, f.aircraft_cycles_at_install,
+              f.tsn_minutes_at_install, f.csn_at_install, f.tso_minutes_at_install, f.cso_at_install, pt.serial_number, pn.part_number, pn.cage,
+              ${latest("as_of")} AS latest_as_of, ${latest("total_minutes")} AS latest_minutes, ${latest("total_cycles")} AS latest_cycles
+         FROM positions p LEFT JOIN fitted f ON f.position_id = p.id AND f.aircraft_id = ? LEFT JOIN parts pt ON pt.id = f.part_id LEFT JOIN part_numbers pn ON pn.id = pt.part_number_id
+        WHERE p.aircraft_type_id = ? AND p.code = ? LIMIT 1`,
+      [aircraft.id, 1, aircraft.id, 1, aircraft.id, 1, aircraft.id, aircraft.aircraft_type_id, input.positionCode],
     );
-    await rows(conn, "SELECT * FROM utilization WHERE aircraft_id = ? ORDER BY as_of DESC LIMIT 1", [aircraft.id]);
+    const fitted = position;
     const [on] = await rows(
       conn,
       "SELECT pt.*, pn.part_number, pn.cage, pn.life_limit_minutes, pn.life_limit_cycles, pn.life_limit_days, pn.id AS pn_id FROM parts pt JOIN part_numbers pn ON pn.id = pt.part_number_id WHERE pt.id = ? AND pt.status = 'serviceable' FOR UPDATE",
       [input.onPartId],
     );
-    await rows(
+    // Eligibility, where else the unit is fitted and its latest release in one read.
+    const [certificate] = await rows(
       conn,
-      `SELECT pe.part_number_id FROM position_eligibility pe WHERE pe.position_id = ? AND (pe.part_number_id = ?
-         OR EXISTS (SELECT * FROM part_interchange pi WHERE pi.part_number_id = pe.part_number_id AND pi.alternate_part_number_id = ?)
-         OR EXISTS (SELECT * FROM part_interchange pi WHERE pi.alternate_part_number_id = pe.part_number_id AND pi.part_number_id = ? AND pi.two_way = 1)) LIMIT 1`,
-      [position.id, on.pn_id, on.pn_id, on.pn_id],
+      `SELECT EXISTS (SELECT pe.part_number_id FROM position_eligibility pe WHERE pe.position_id = ? AND (pe.part_number_id = ?
+                OR EXISTS (SELECT * FROM part_interchange pi WHERE pi.part_number_id = pe.part_number_id AND pi.alternate_part_number_id = ?)
+                OR EXISTS (SELECT * FROM part_interchange pi WHERE pi.alternate_part_number_id = pe.part_number_id AND pi.part_number_id = ? AND pi.two_way = ?))) AS eligible,
+              (SELECT a.registration FROM fitted f JOIN aircraft a ON a.id = f.aircraft_id JOIN positions p ON p.id = f.position_id WHERE f.part_id = ? LIMIT ?) AS fitted_registration,
+              (SELECT p.code FROM fitted f JOIN aircraft a ON a.id = f.aircraft_id JOIN positions p ON p.id = f.position_id WHERE f.part_id = ? LIMIT ?) AS fitted_code,
+              (SELECT document_id FROM ledger_entries WHERE part_id = ? AND kind IN ('received', 'repaired') ORDER BY seq DESC LIMIT ?) AS document_id
+        LIMIT 1`,
+      [position.id, on.pn_id, on.pn_id, on.pn_id, true, on.id, 1, on.id, 1, on.id, 1],
     );
-    await rows(conn, "SELECT a.registration, p.code FROM fitted f JOIN aircraft a ON a.id = f.aircraft_id JOIN positions p ON p.id = f.position_id WHERE f.part_id = ? LIMIT 1", [on.id]);
-    const [certificate] = await rows(conn, "SELECT seq, document_id FROM ledger_entries WHERE part_id = ? AND kind IN ('received', 'repaired') ORDER BY seq DESC LIMIT 1", [on.id]);
     await rows(conn, "SELECT request_hash, response FROM swaps WHERE idempotency_key = ? LIMIT 1", [input.idempotencyKey]);
 
     const now = new Date();
@@ -164,11 +172,6 @@ async function swapTransaction(pool: mysql.Pool, user: Row, input: BaselineSwap)
     await rows(conn, "DELETE FROM fitted WHERE aircraft_id = ? AND position_id = ?", [aircraft.id, position.id]);
     await rows(conn, "UPDATE parts SET status = 'unserviceable', bin = NULL, tsn_minutes = ?, csn = ?, tso_minutes = NULL, cso = NULL, updated_at = ? WHERE id = ?", [offTotals.tsn, offTotals.csn, now, fitted.part_id]);
     await rows(conn, "UPDATE parts SET status = 'installed', bin = NULL, updated_at = ? WHERE id = ?", [now, on.id]);
-    await rows(
-      conn,
-      "INSERT INTO fitted (aircraft_cycles_at_install, aircraft_id, aircraft_minutes_at_install, csn_at_install, cso_at_install, installed_at, installed_seq, part_id, position_id, tsn_minutes_at_install, tso_minutes_at_install) VALUES (?, ?, ?, ?, NULL, ?, 0, ?, ?, ?, NULL)",
-      [input.cycles, aircraft.id, input.minutes, on.csn, now, on.id, position.id, on.tsn_minutes],
-    );
     await rows(conn, "INSERT INTO utilization (aircraft_id, as_of, recorded_at, recorded_by, total_cycles, total_minutes) VALUES (?, ?, ?, ?, ?, ?)", [aircraft.id, now, now, user.id, input.cycles, input.minutes]);
 
     const [head] = await rows(conn, "SELECT last_seq, last_hash FROM ledger_head WHERE id = 1 LIMIT 1 FOR UPDATE");
@@ -181,7 +184,11 @@ async function swapTransaction(pool: mysql.Pool, user: Row, input: BaselineSwap)
     const placeholders = `(${columns.map(() => "?").join(",")})`;
     await rows(conn, `INSERT INTO ledger_entries (${columns.join(",")}) VALUES ${placeholders}, ${placeholders}`, entryRows.flatMap((r) => Object.values(r)));
     await rows(conn, "UPDATE ledger_head SET last_seq = ?, last_hash = ? WHERE id = 1", [installed.seq, installed.hash]);
-    await rows(conn, "UPDATE fitted SET installed_seq = ? WHERE aircraft_id = ? AND position_id = ?", [installed.seq, aircraft.id, position.id]);
+    await rows(
+      conn,
+      "INSERT INTO fitted (aircraft_cycles_at_install, aircraft_id, aircraft_minutes_at_install, csn_at_install, cso_at_install, installed_at, installed_seq, part_id, position_id, tsn_minutes_at_install, tso_minutes_at_install) VALUES (?, ?, ?, ?, NULL, ?, ?, ?, ?, ?, NULL)",
+      [input.cycles, aircraft.id, input.minutes, on.csn, now, installed.seq, on.id, position.id, on.tsn_minutes],
+    );
     const body = { swap: { id: randomUUID(), registration: input.registration, positionCode: input.positionCode }, entries: [removed, installed] };
     await rows(
       conn,
