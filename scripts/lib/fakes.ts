@@ -4,16 +4,32 @@ import { mkdirSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
 
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
+// Listening ports come from below the kernel's ephemeral range (32768-60999 on Linux), which the
+// outgoing connections of a busy run (thousands during the demo seed) draw their local ports from:
+// a port picked there with listen(0) can be taken by a client socket before the service binds it.
+const LISTEN_PORTS = { from: 20_000, to: 32_000 };
+const taken = new Set<number>();
+
+function canListen(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
     const server = net.createServer();
     server.unref();
-    server.on("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
+    server.once("error", () => resolve(false));
+    server.listen(port, "127.0.0.1", () => server.close(() => resolve(true)));
   });
+}
+
+/** A free loopback port for a service this process is about to start (never the same one twice). */
+export async function freePort(): Promise<number> {
+  for (let attempt = 0; attempt < 200; attempt++) {
+    const port = LISTEN_PORTS.from + Math.floor(Math.random() * (LISTEN_PORTS.to - LISTEN_PORTS.from));
+    if (taken.has(port)) continue;
+    if (await canListen(port)) {
+      taken.add(port);
+      return port;
+    }
+  }
+  throw new Error(`no free port between ${LISTEN_PORTS.from} and ${LISTEN_PORTS.to} on 127.0.0.1`);
 }
 
 async function waitForPort(port: number, timeoutMs = 20_000): Promise<void> {
