@@ -55,14 +55,17 @@ export function removalsWhere(filters: RemovalFilters): SqlPart {
  * notes). Every other table is an eq_ref lookup; the last installation before the removal comes from
  * the (part_id, seq) index, the replacement from swaps.removed_seq.
  */
-export const REMOVALS_FROM = `
+/** The removal with the tables the filters name: all a count needs (the rest never adds or drops a row). */
+export const REMOVALS_FILTERED_FROM = `
 FROM ledger_entries r
 JOIN aircraft a ON a.id = r.aircraft_id
 JOIN aircraft_types t ON t.id = a.aircraft_type_id
 JOIN stations st ON st.id = a.station_id
 JOIN positions pos ON pos.id = r.position_id
 JOIN parts p ON p.id = r.part_id
-JOIN part_numbers pn ON pn.id = p.part_number_id
+JOIN part_numbers pn ON pn.id = p.part_number_id`;
+
+export const REMOVALS_FROM = `${REMOVALS_FILTERED_FROM}
 JOIN users u ON u.id = r.recorded_by
 LEFT JOIN ledger_entries ie ON ie.seq = (
   SELECT MAX(x.seq) FROM ledger_entries x WHERE x.part_id = r.part_id AND x.kind = 'installed' AND x.seq < r.seq

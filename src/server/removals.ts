@@ -3,7 +3,7 @@ import { formatFlightTime } from "@/domain/flight-time";
 import type { RemovalFilters, RemovalListAnswer, RemovalListQuery, RemovalRow, RemovalSort, ShopFinding } from "@/lib/schemas/reliability";
 import { SHOP_FINDINGS } from "@/lib/schemas/reliability";
 import { db } from "./db";
-import { REMOVALS_COLUMNS, REMOVALS_FROM, removalsWhere, SHOP_FINDING_COLUMN } from "./removals-sql";
+import { REMOVALS_COLUMNS, REMOVALS_FILTERED_FROM, REMOVALS_FROM, removalsWhere, SHOP_FINDING_COLUMN } from "./removals-sql";
 
 // The removal history: every `removed` ledger entry with its aircraft, position, unit, the
 // matching installed entry (for time on wing) and the unit fitted in its place (through swaps).
@@ -73,15 +73,7 @@ export async function listRemovals(filters: RemovalFilters, page: RemovalListQue
     db().raw(`SELECT ${REMOVALS_COLUMNS}, ${SHOP_FINDING_COLUMN} ${REMOVALS_FROM} ${where.sql} ORDER BY ${order} LIMIT ? OFFSET ?`, [...where.params, page.pageSize, offset]),
     // Counting needs none of the LEFT JOINs: they never add or drop a removal.
     db().raw(
-      `SELECT COUNT(*) AS total, COALESCE(SUM(r.removal_type = 'unscheduled'), 0) AS unscheduled
-       FROM ledger_entries r
-       JOIN aircraft a ON a.id = r.aircraft_id
-       JOIN aircraft_types t ON t.id = a.aircraft_type_id
-       JOIN stations st ON st.id = a.station_id
-       JOIN positions pos ON pos.id = r.position_id
-       JOIN parts p ON p.id = r.part_id
-       JOIN part_numbers pn ON pn.id = p.part_number_id
-       ${where.sql}`,
+      `SELECT COUNT(*) AS total, COALESCE(SUM(r.removal_type = 'unscheduled'), 0) AS unscheduled ${REMOVALS_FILTERED_FROM} ${where.sql}`,
       where.params,
     ),
   ])) as [[RemovalDbRow[]], [[{ total: number; unscheduled: number }]]];
