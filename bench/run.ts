@@ -175,8 +175,16 @@ async function swapFigures(sides: Sides, cookies: { technician: string; stores: 
        FROM fitted f JOIN positions p ON p.id = f.position_id JOIN aircraft a ON a.id = f.aircraft_id JOIN parts pt ON pt.id = f.part_id JOIN part_numbers pn ON pn.id = pt.part_number_id
       WHERE p.requires_independent_inspection = 0 ORDER BY f.aircraft_id, p.id`,
   )) as unknown as [Array<Record<string, string | number>>];
-  // Spread over the fleet: every 50th fitted position, the app and the baseline taking turns.
-  const chosen = fittedRows.filter((_, i) => i % 50 === 0).slice(0, 2 * perSide);
+  // Spread over the fleet: every 50th fitted position, dealt out one aircraft at a time, so that
+  // consecutive swaps (and the 8 concurrent clients) work on different aircraft, as technicians at
+  // different aircraft do; the app and the baseline take turns.
+  const byAircraft = new Map<number, Array<Record<string, string | number>>>();
+  for (const row of fittedRows.filter((_, i) => i % 50 === 0)) byAircraft.set(Number(row.aircraft_id), [...(byAircraft.get(Number(row.aircraft_id)) ?? []), row]);
+  const dealt: Array<Record<string, string | number>> = [];
+  for (let round = 0; dealt.length < 2 * perSide && [...byAircraft.values()].some((list) => list.length > round); round++) {
+    for (const list of byAircraft.values()) if (list[round]) dealt.push(list[round]);
+  }
+  const chosen = dealt.slice(0, 2 * perSide);
   if (chosen.length < 2 * perSide) throw new Error(`only ${chosen.length} fitted positions to swap`);
   const [totals] = (await sides.pool.query("SELECT aircraft_id, MAX(total_minutes) AS minutes, MAX(total_cycles) AS cycles FROM utilization GROUP BY aircraft_id")) as unknown as [Array<Record<string, number>>];
   const totalsOf = new Map(totals.map((t) => [Number(t.aircraft_id), t]));
