@@ -106,7 +106,6 @@ async function findingCounts(pool: mysql.Pool, partIds: unknown[]): Promise<Map<
 export interface BaselineSwap {
   registration: string;
   positionCode: string;
-  offPartId: number;
   onPartId: number;
   minutes: number;
   cycles: number;

@@ -155,7 +155,6 @@ interface SwapPlan {
   registration: string;
   positionCode: string;
   partNumber: string;
-  offPartId: number;
   offSerial: string;
   onPartId: number;
   onSerial: string;
@@ -204,7 +203,7 @@ async function swapFigures(sides: Sides, cookies: { technician: string; stores: 
     if (response.status !== 201) throw new Error(`receipt ${serial}: ${response.status} ${text}`);
     const total = totalsOf.get(Number(row.aircraft_id))!;
     plans[i] = {
-      registration: String(row.registration), positionCode: String(row.code), partNumber: String(row.part_number), offPartId: Number(row.part_id), offSerial: String(row.serial_number),
+      registration: String(row.registration), positionCode: String(row.code), partNumber: String(row.part_number), offSerial: String(row.serial_number),
       onPartId: Number(JSON.parse(text).part.id), onSerial: serial, minutes: Number(total.minutes) + 60, cycles: Number(total.cycles) + 1,
     };
   });
@@ -223,7 +222,7 @@ async function swapFigures(sides: Sides, cookies: { technician: string; stores: 
   };
   const baseSwap = async (i: number) => {
     const plan = basePlans[i];
-    const body: BaselineSwap = { registration: plan.registration, positionCode: plan.positionCode, offPartId: plan.offPartId, onPartId: plan.onPartId, minutes: plan.minutes, cycles: plan.cycles, idempotencyKey: `base-${plan.onSerial}` };
+    const body: BaselineSwap = { registration: plan.registration, positionCode: plan.positionCode, onPartId: plan.onPartId, minutes: plan.minutes, cycles: plan.cycles, idempotencyKey: `base-${plan.onSerial}` };
     const response = await fetch(`${sides.baseUrl}/api/swaps`, { method: "POST", headers: { ...PLAIN, cookie: cookies.technician, "content-type": "application/json" }, body: JSON.stringify(body) });
     if (response.status !== 200) throw new Error(`baseline swap ${i}: ${response.status} ${await response.text()}`);
   };
