@@ -91,30 +91,34 @@ export function canonicalEncodeEntry(entry: LedgerEntryFields): string {
   if (entry.removalType !== null && !REMOVALS.has(entry.removalType)) {
     throw new DomainInputError(`removalType "${entry.removalType}" is not scheduled or unscheduled.`, "removalType");
   }
+  // One join of the values: a flat string in one pass, where two dozen `+` would build a rope
+  // that hashing must then flatten (measurably dearer over a million entries).
   return (
     "[" +
-    encodeInt(entry.seq, "seq") + "," +
-    '"' + entry.kind + '",' +
-    encodeInt(entry.partId, "partId") + "," +
-    encodeNullableInt(entry.aircraftId, "aircraftId") + "," +
-    encodeNullableInt(entry.positionId, "positionId") + "," +
-    '"' + normaliseInstant(entry.occurredAt, "occurredAt") + '",' +
-    '"' + normaliseInstant(entry.recordedAt, "recordedAt") + '",' +
-    encodeString(entry.recordedBy, "recordedBy") + "," +
-    encodeNullableInt(entry.aircraftMinutes, "aircraftMinutes") + "," +
-    encodeNullableInt(entry.aircraftCycles, "aircraftCycles") + "," +
-    encodeNullableInt(entry.tsnMinutes, "tsnMinutes") + "," +
-    encodeNullableInt(entry.csn, "csn") + "," +
-    encodeNullableInt(entry.tsoMinutes, "tsoMinutes") + "," +
-    encodeNullableInt(entry.cso, "cso") + "," +
-    (entry.removalType === null ? "null" : '"' + entry.removalType + '"') + "," +
-    encodeNullableString(entry.reason, "reason") + "," +
-    encodeNullableString(entry.workOrder, "workOrder") + "," +
-    encodeNullableString(entry.taskReference, "taskReference") + "," +
-    encodeNullableString(entry.testResult, "testResult") + "," +
-    encodeNullableInt(entry.documentId, "documentId") + "," +
-    encodeNullableInt(entry.correctsSeq, "correctsSeq") + "," +
-    encodeDetails(entry.details) +
+    [
+      encodeInt(entry.seq, "seq"),
+      '"' + entry.kind + '"',
+      encodeInt(entry.partId, "partId"),
+      encodeNullableInt(entry.aircraftId, "aircraftId"),
+      encodeNullableInt(entry.positionId, "positionId"),
+      '"' + normaliseInstant(entry.occurredAt, "occurredAt") + '"',
+      '"' + normaliseInstant(entry.recordedAt, "recordedAt") + '"',
+      encodeString(entry.recordedBy, "recordedBy"),
+      encodeNullableInt(entry.aircraftMinutes, "aircraftMinutes"),
+      encodeNullableInt(entry.aircraftCycles, "aircraftCycles"),
+      encodeNullableInt(entry.tsnMinutes, "tsnMinutes"),
+      encodeNullableInt(entry.csn, "csn"),
+      encodeNullableInt(entry.tsoMinutes, "tsoMinutes"),
+      encodeNullableInt(entry.cso, "cso"),
+      entry.removalType === null ? "null" : '"' + entry.removalType + '"',
+      encodeNullableString(entry.reason, "reason"),
+      encodeNullableString(entry.workOrder, "workOrder"),
+      encodeNullableString(entry.taskReference, "taskReference"),
+      encodeNullableString(entry.testResult, "testResult"),
+      encodeNullableInt(entry.documentId, "documentId"),
+      encodeNullableInt(entry.correctsSeq, "correctsSeq"),
+      encodeDetails(entry.details),
+    ].join(",") +
     "]"
   );
 }

@@ -7,7 +7,8 @@ import { serverEnv } from "./env";
 // module re-evaluation (dev reloads, several route bundles) does not open more pools.
 const globalForDb = globalThis as unknown as { threadlineKnex?: Knex; threadlinePool?: mysql.Pool };
 
-function connectionOptions() {
+/** Where the app's database is, for a connection opened outside the pools (the ledger check's worker threads). */
+export function connectionOptions() {
   const env = serverEnv();
   return {
     host: env.DB_HOST,

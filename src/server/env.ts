@@ -18,6 +18,12 @@ const EnvSchema = z.object({
   MAIL_FROM: z.string().default("Threadline <no-reply@threadline.test>"),
   APP_URL: z.string().url().default("http://localhost:3000"),
   NODE_ENV: z.string().default("production"),
+  // The ledger check splits a long ledger into seq ranges verified by worker threads side by side:
+  // at most this many threads (default: the machine's cores, plus one to cover I/O waits) ...
+  LEDGER_CHECK_THREADS: z.coerce.number().int().min(1).max(32).optional(),
+  // ... each with at least this many entries (below two of them the check stays in one thread; the
+  // tests set it low so that their small ledgers are split too).
+  LEDGER_CHECK_MIN_SEGMENT: z.coerce.number().int().min(1).default(100_000),
 });
 
 export type ServerEnv = z.infer<typeof EnvSchema>;

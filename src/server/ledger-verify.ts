@@ -1,16 +1,24 @@
 import "server-only";
+import { availableParallelism } from "node:os";
+import { Worker } from "node:worker_threads";
 import type { PoolConnection } from "mysql2";
-import { ChainVerifier, type ChainBreakReason } from "@/domain/ledger-hash";
-import type { ChainedLedgerEntry, LedgerEntryFields } from "@/domain/ledger-types";
-import { isoFromDatetime } from "@/lib/datetime-text";
-import { LEDGER_ENTRY_COLUMNS } from "@/lib/ledger-rows";
-import { pool } from "./db";
+import { GENESIS_HASH, type ChainBreakReason } from "@/domain/ledger-hash";
+import { MISSING_PREV_HASH, joinSegmentOutcomes, planSegmentRanges, type LedgerSegment, type SegmentOutcome } from "@/domain/ledger-segments";
+import { connectionOptions, pool } from "./db";
+import { serverEnv } from "./env";
+import { verifySegment } from "./ledger-segment";
+import type { LedgerWorkerInput } from "./ledger-verify-worker";
 
-// The ledger check: recompute the hash chain over every entry, in seq order, straight from
-// MariaDB. Rows are streamed (as arrays, the cheapest shape mysql2 produces) and fed to the
-// verifier one at a time, so memory stays flat however long the ledger grows. The read runs in
-// one consistent snapshot with the head row, so entries appended meanwhile neither break the
-// check nor slip into it half-way.
+// The ledger check: recompute the hash chain over every entry up to the head, straight from
+// MariaDB. Rows are streamed and verified one at a time, so memory stays flat however long the
+// ledger grows. The head is read in a consistent snapshot; entries up to it are committed and
+// append-only, so entries appended meanwhile neither break the check nor slip into it half-way.
+//
+// Encoding and hashing each entry costs about three times what reading it does, so one thread
+// is the limit of a long check. A long ledger is therefore split into seq ranges, each verified by
+// a worker thread over a connection of its own from the stored hash of the entry before it, and
+// the outcomes are joined into the single-pass answer (src/domain/ledger-segments.ts says why
+// that is sound). The workers also keep the check off the event loop that serves other requests.
 
 export interface LedgerIntact {
   ok: true;
@@ -20,6 +28,8 @@ export interface LedgerIntact {
   headSeq: number;
   checkedAt: string;
   durationMs: number;
+  /** Seq ranges verified side by side (1: the whole ledger in one pass). */
+  segments: number;
 }
 
 export interface LedgerBroken {
@@ -34,42 +44,10 @@ export interface LedgerBroken {
   detail?: string;
   checkedAt: string;
   durationMs: number;
+  segments: number;
 }
 
 export type LedgerVerification = LedgerIntact | LedgerBroken;
-
-const nullableNumber = (value: unknown) => (value === null ? null : Number(value));
-// DATETIME(3) columns are read as text (dateStrings) and rewritten as the ISO instants the hash covers.
-const isoOf = (value: unknown) => isoFromDatetime(value as Date | string);
-
-/** Fills `into` from one array row (columns in LEDGER_ENTRY_COLUMNS order); the verifier keeps no reference, so one object serves every row. */
-function fillEntry(into: ChainedLedgerEntry, row: unknown[]): ChainedLedgerEntry {
-  into.seq = Number(row[0]);
-  into.kind = row[1] as LedgerEntryFields["kind"];
-  into.partId = Number(row[2]);
-  into.aircraftId = nullableNumber(row[3]);
-  into.positionId = nullableNumber(row[4]);
-  into.occurredAt = isoOf(row[5]);
-  into.recordedAt = isoOf(row[6]);
-  into.recordedBy = String(row[7]);
-  into.aircraftMinutes = nullableNumber(row[8]);
-  into.aircraftCycles = nullableNumber(row[9]);
-  into.tsnMinutes = nullableNumber(row[10]);
-  into.csn = nullableNumber(row[11]);
-  into.tsoMinutes = nullableNumber(row[12]);
-  into.cso = nullableNumber(row[13]);
-  into.removalType = (row[14] as LedgerEntryFields["removalType"]) ?? null;
-  into.reason = (row[15] as string | null) ?? null;
-  into.workOrder = (row[16] as string | null) ?? null;
-  into.taskReference = (row[17] as string | null) ?? null;
-  into.testResult = (row[18] as string | null) ?? null;
-  into.documentId = nullableNumber(row[19]);
-  into.correctsSeq = nullableNumber(row[20]);
-  into.details = row[21] === null ? null : (JSON.parse(String(row[21])) as Record<string, string>);
-  into.prevHash = String(row[22]);
-  into.hash = String(row[23]);
-  return into;
-}
 
 const BREAK_WORDS: Record<LedgerBroken["reason"], string> = {
   hash_mismatch: "its stored contents no longer match its hash: the entry was altered after it was written",
@@ -97,69 +75,83 @@ export async function verifyLedger(): Promise<LedgerVerification> {
     await query(connection, "START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY");
     const [head] = await query<Array<{ last_seq: number | string; last_hash: string }>>(connection, "SELECT last_seq, last_hash FROM ledger_head WHERE id = 1");
     const headSeq = Number(head?.last_seq ?? 0);
-    const verifier = new ChainVerifier();
-    const scratch = {} as ChainedLedgerEntry;
-    let lastSeq = 0;
-    // Rows are checked in mysql2's own row callback, synchronously: no promise per row (each one is
-    // dear under the framework's async hooks), and the socket is read no faster than rows are checked.
-    const broken = await new Promise<boolean>((resolve, reject) => {
-      let settled = false;
-      const select = connection.query({ sql: `SELECT ${LEDGER_ENTRY_COLUMNS.join(", ")} FROM ledger_entries WHERE seq <= ? ORDER BY seq`, values: [headSeq], rowsAsArray: true, dateStrings: true });
-      select.on("result", (row) => {
-        if (settled) return;
-        const pushed = verifier.push(fillEntry(scratch, row as unknown as unknown[]));
-        lastSeq = scratch.seq;
-        if (!pushed.ok) {
-          settled = true;
-          resolve(true); // the rest stays unread: the connection is destroyed below, not reused
-        }
-      });
-      select.on("error", (error) => {
-        if (!settled) reject(error);
-        settled = true;
-      });
-      select.on("end", () => {
-        if (!settled) resolve(false);
-        settled = true;
-      });
-    });
-    if (!broken) {
-      await query(connection, "COMMIT");
-      reusable = true;
+    const env = serverEnv();
+    const ranges = planSegmentRanges(headSeq, env.LEDGER_CHECK_THREADS ?? availableParallelism() + 1, env.LEDGER_CHECK_MIN_SEGMENT);
+    let outcomes: SegmentOutcome[];
+    if (ranges.length <= 1) {
+      const segment = { firstSeq: 1, lastSeq: headSeq, startPrevHash: GENESIS_HASH };
+      const { stoppedEarly, ...outcome } = await verifySegment(connection, segment);
+      outcomes = [outcome];
+      if (stoppedEarly) return report(outcomes, headSeq, head?.last_hash, started, checkedAt);
+    } else {
+      const segments = await withStartHashes(connection, ranges);
+      outcomes = await Promise.all(segments.map(verifyInWorker));
     }
-    const durationMs = Math.round((performance.now() - started) * 10) / 10;
-    const result = verifier.result();
-    if (!result.ok) {
-      return {
-        ok: false,
-        brokenAt: result.brokenAt,
-        reason: result.reason,
-        entries: result.entries,
-        foundSeq: result.foundSeq,
-        message: `The chain breaks at seq ${result.brokenAt}: ${BREAK_WORDS[result.reason]}.`,
-        ...(result.detail ? { detail: result.detail } : {}),
-        checkedAt,
-        durationMs,
-      };
-    }
-    if (!broken && (lastSeq !== headSeq || result.head !== (head?.last_hash ?? result.head))) {
-      const brokenAt = Math.min(lastSeq + 1, headSeq);
-      return {
-        ok: false,
-        brokenAt,
-        reason: "head_mismatch",
-        entries: result.entries,
-        foundSeq: lastSeq,
-        message: `The chain breaks at seq ${brokenAt}: ${BREAK_WORDS.head_mismatch}.`,
-        checkedAt,
-        durationMs,
-      };
-    }
-    return { ok: true, entries: result.entries, head: result.head, headSeq, checkedAt, durationMs };
+    await query(connection, "COMMIT");
+    reusable = true;
+    return report(outcomes, headSeq, head?.last_hash, started, checkedAt);
   } finally {
     if (reusable) connection.release();
     else connection.destroy();
   }
+}
+
+/** Each range with the stored hash of the entry just before it, read in the check's snapshot. */
+async function withStartHashes(connection: PoolConnection, ranges: Array<{ firstSeq: number; lastSeq: number }>): Promise<LedgerSegment[]> {
+  const before = ranges.filter((range) => range.firstSeq > 1).map((range) => range.firstSeq - 1);
+  const rows = await new Promise<Array<{ seq: number | string; hash: string }>>((resolve, reject) =>
+    connection.query({ sql: "SELECT seq, hash FROM ledger_entries WHERE seq IN (?)", values: [before] }, (error, result) => (error ? reject(error) : resolve(result as never))),
+  );
+  const hashOf = new Map(rows.map((row) => [Number(row.seq), row.hash]));
+  return ranges.map((range) => ({ ...range, startPrevHash: range.firstSeq === 1 ? GENESIS_HASH : (hashOf.get(range.firstSeq - 1) ?? MISSING_PREV_HASH) }));
+}
+
+function verifyInWorker(segment: LedgerSegment): Promise<SegmentOutcome> {
+  const input: LedgerWorkerInput = { connection: connectionOptions(), segment };
+  const worker = new Worker(new URL("./ledger-verify-worker.ts", import.meta.url), { workerData: input });
+  return new Promise((resolve, reject) => {
+    worker.once("message", (message: { outcome?: SegmentOutcome; error?: string }) => {
+      if (message.outcome) resolve(message.outcome);
+      else reject(new Error(`The ledger check of seqs ${segment.firstSeq}-${segment.lastSeq} failed: ${message.error}`));
+    });
+    worker.once("error", reject);
+    worker.once("exit", (code) => reject(new Error(`The ledger check's worker for seqs ${segment.firstSeq}-${segment.lastSeq} stopped (exit code ${code}).`)));
+  });
+}
+
+function report(outcomes: SegmentOutcome[], headSeq: number, headHash: string | undefined, started: number, checkedAt: string): LedgerVerification {
+  const durationMs = Math.round((performance.now() - started) * 10) / 10;
+  const { verification: result, lastSeenSeq } = joinSegmentOutcomes(outcomes, GENESIS_HASH);
+  const segments = outcomes.length;
+  if (!result.ok) {
+    return {
+      ok: false,
+      brokenAt: result.brokenAt,
+      reason: result.reason,
+      entries: result.entries,
+      foundSeq: result.foundSeq,
+      message: `The chain breaks at seq ${result.brokenAt}: ${BREAK_WORDS[result.reason]}.`,
+      ...(result.detail ? { detail: result.detail } : {}),
+      checkedAt,
+      durationMs,
+      segments,
+    };
+  }
+  if (lastSeenSeq !== headSeq || result.head !== (headHash ?? result.head)) {
+    const brokenAt = Math.min(lastSeenSeq + 1, headSeq);
+    return {
+      ok: false,
+      brokenAt,
+      reason: "head_mismatch",
+      entries: result.entries,
+      foundSeq: lastSeenSeq,
+      message: `The chain breaks at seq ${brokenAt}: ${BREAK_WORDS.head_mismatch}.`,
+      checkedAt,
+      durationMs,
+      segments,
+    };
+  }
+  return { ok: true, entries: result.entries, head: result.head, headSeq, checkedAt, durationMs, segments };
 }
 
 /** The ledger head now: the last seq and its hash, as a printed report quotes them. */

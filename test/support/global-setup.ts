@@ -46,7 +46,9 @@ export async function setup(project: TestProject) {
   app = spawn(path.join(projectRoot, "node_modules", ".bin", "next"), ["start", "-p", String(appPort), "-H", "127.0.0.1"], {
     cwd: projectRoot,
     stdio: ["ignore", "ignore", "inherit"],
-    env: { ...process.env, ...services.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1" },
+    // The demo ledger is a few thousand entries: segments of 500 make the ledger check split it
+    // across its worker threads, so every ledger-check test goes through the joined path.
+    env: { ...process.env, ...services.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", LEDGER_CHECK_MIN_SEGMENT: "500", LEDGER_CHECK_THREADS: "3" },
   });
   await waitForPort(appPort, 60_000);
   log(`app on ${appUrl}`);
