@@ -168,9 +168,13 @@ async function swapTransaction(pool: mysql.Pool, user: Row, input: BaselineSwap)
     const flown = input.minutes - Number(fitted.aircraft_minutes_at_install);
     const flownCycles = input.cycles - Number(fitted.aircraft_cycles_at_install);
     const offTotals = { tsn: Number(fitted.tsn_minutes_at_install) + flown, csn: Number(fitted.csn_at_install) + flownCycles };
-    await rows(conn, "DELETE FROM fitted WHERE aircraft_id = ? AND position_id = ?", [aircraft.id, position.id]);
-    await rows(conn, "UPDATE parts SET status = 'unserviceable', bin = NULL, tsn_minutes = ?, csn = ?, tso_minutes = NULL, cso = NULL, updated_at = ? WHERE id = ?", [offTotals.tsn, offTotals.csn, now, fitted.part_id]);
-    await rows(conn, "UPDATE parts SET status = 'installed', bin = NULL, updated_at = ? WHERE id = ?", [now, on.id]);
+    await rows(
+      conn,
+      `UPDATE parts SET status = IF(id = ?, 'unserviceable', 'installed'), bin = NULL,
+              tsn_minutes = IF(id = ?, ?, tsn_minutes), csn = IF(id = ?, ?, csn), tso_minutes = IF(id = ?, ?, tso_minutes), cso = IF(id = ?, ?, cso), updated_at = ?
+        WHERE id IN (?, ?)`,
+      [fitted.part_id, fitted.part_id, offTotals.tsn, fitted.part_id, offTotals.csn, fitted.part_id, null, fitted.part_id, null, now, fitted.part_id, on.id],
+    );
     await rows(conn, "INSERT INTO utilization (aircraft_id, as_of, recorded_at, recorded_by, total_cycles, total_minutes) VALUES (?, ?, ?, ?, ?, ?)", [aircraft.id, now, now, user.id, input.cycles, input.minutes]);
 
     const [head] = await rows(conn, "SELECT last_seq, last_hash FROM ledger_head WHERE id = 1 LIMIT 1 FOR UPDATE");
@@ -185,8 +189,10 @@ async function swapTransaction(pool: mysql.Pool, user: Row, input: BaselineSwap)
     await rows(conn, "UPDATE ledger_head SET last_seq = ?, last_hash = ? WHERE id = 1", [installed.seq, installed.hash]);
     await rows(
       conn,
-      "INSERT INTO fitted (aircraft_cycles_at_install, aircraft_id, aircraft_minutes_at_install, csn_at_install, cso_at_install, installed_at, installed_seq, part_id, position_id, tsn_minutes_at_install, tso_minutes_at_install) VALUES (?, ?, ?, ?, NULL, ?, ?, ?, ?, ?, NULL)",
-      [input.cycles, aircraft.id, input.minutes, on.csn, now, installed.seq, on.id, position.id, on.tsn_minutes],
+      `UPDATE fitted SET part_id = ?, installed_seq = ?, installed_at = ?, aircraft_minutes_at_install = ?, aircraft_cycles_at_install = ?,
+              tsn_minutes_at_install = ?, csn_at_install = ?, tso_minutes_at_install = ?, cso_at_install = ?
+        WHERE aircraft_id = ? AND position_id = ?`,
+      [on.id, installed.seq, now, input.minutes, input.cycles, on.tsn_minutes, on.csn, null, null, aircraft.id, position.id],
     );
     const body = { swap: { id: randomUUID(), registration: input.registration, positionCode: input.positionCode }, entries: [removed, installed] };
     await rows(

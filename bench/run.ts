@@ -25,6 +25,8 @@ const SHOW_SQL = process.argv.includes("--show-sql");
 /** `--only trace,csv` measures just those groups: trace, aircraft, swaps, csv, verify, js. */
 const ONLY = process.argv.find((arg, i) => process.argv[i - 1] === "--only")?.split(",") ?? null;
 const wanted = (group: string) => !ONLY || ONLY.includes(group);
+/** `--profile-app DIR` runs the app under `node --cpu-prof`; its profile lands in DIR when the run ends. */
+const PROFILE_DIR = process.argv.find((arg, i) => process.argv[i - 1] === "--profile-app") ?? null;
 const READS = 300;
 const SERIAL_SWAPS = 100;
 const CONCURRENT_SWAPS = 200;
@@ -81,9 +83,14 @@ async function main() {
     stoppers.push(() => s3.stop());
     const mail = await startMailFake({ dir: path.join(BENCH.dataDir, "mail"), smtpPort, webPort: mailWebPort, root: projectRoot });
     stoppers.push(() => mail.stop());
-    const app: ChildProcess = spawn(path.join(projectRoot, "node_modules", ".bin", "next"), ["start", "-p", String(appPort), "-H", "127.0.0.1"], {
-      cwd: projectRoot, stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, ...env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1" },
-    });
+    const nextStart = ["start", "-p", String(appPort), "-H", "127.0.0.1"];
+    const app: ChildProcess = spawn(
+      PROFILE_DIR ? process.execPath : path.join(projectRoot, "node_modules", ".bin", "next"),
+      PROFILE_DIR ? ["--cpu-prof", "--cpu-prof-interval=250", `--cpu-prof-dir=${path.resolve(PROFILE_DIR)}`, path.join(projectRoot, "node_modules", "next", "dist", "bin", "next"), ...nextStart] : nextStart,
+      {
+        cwd: projectRoot, stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, ...env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1" },
+      },
+    );
     stoppers.push(() => stopChild(app));
     await waitForPort(appPort, 60_000);
 

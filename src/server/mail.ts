@@ -2,6 +2,7 @@ import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
 import { db, type Trx } from "./db";
 import { serverEnv } from "./env";
+import { asSql, type Sql } from "./sql";
 
 // Mail is written to mail_outbox in the same transaction as the change that causes it, then
 // sent after commit. A failed send is retried with backoff, so a change never waits on SMTP
@@ -14,15 +15,13 @@ export interface OutgoingMail {
 }
 
 /** Queues mail in the caller's transaction; `now` is the caller's clock (the change's own time). */
-export async function queueMail(trx: Trx, mail: OutgoingMail | OutgoingMail[], now: Date = new Date()): Promise<void> {
-  const rows = [mail].flat().map((m) => ({
-    to_address: m.to,
-    subject: m.subject.slice(0, 255),
-    text_body: m.text,
-    created_at: now,
-    next_attempt_at: now,
-  }));
-  if (rows.length) await trx("mail_outbox").insert(rows);
+export async function queueMail(trx: Trx | Sql, mail: OutgoingMail | OutgoingMail[], now: Date = new Date()): Promise<void> {
+  const mails = [mail].flat();
+  if (mails.length === 0) return;
+  await asSql(trx).run(
+    `INSERT INTO mail_outbox (to_address, subject, text_body, created_at, next_attempt_at) VALUES ${mails.map(() => "(?, ?, ?, ?, ?)").join(", ")}`,
+    mails.flatMap((m) => [m.to, m.subject.slice(0, 255), m.text, now, now]),
+  );
 }
 
 const globalForMail = globalThis as unknown as { threadlineMailer?: Transporter; threadlineOutboxTimer?: NodeJS.Timeout; threadlineOutboxBusy?: boolean };

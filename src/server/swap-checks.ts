@@ -1,10 +1,10 @@
 import "server-only";
-import type { Knex } from "knex";
 import { carryOver, remainingLife, ageInDays, type PartTotals } from "@/domain/life";
 import { formatFlightTime } from "@/domain/flight-time";
 import type { SwapCheckInput, UnitRef } from "@/lib/schemas/swaps";
 import type { SwapCheck } from "@/lib/swap-types";
 import { AppError } from "./errors";
+import type { Sql } from "./sql";
 
 // What a swap rests on, read (and, when recording, locked) in one place, so the pre-install check the
 // technician sees and the transaction that records the swap apply exactly the same rules.
@@ -32,14 +32,16 @@ export interface SwapPlan {
 
 const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 
-async function findUnit(trx: Knex | Knex.Transaction, ref: UnitRef, lock: boolean) {
-  const query = trx("parts as pt")
-    .join("part_numbers as pn", "pn.id", "pt.part_number_id")
-    .where("pn.part_number", ref.partNumber.toUpperCase())
-    .andWhere("pt.serial_number", ref.serialNumber.toUpperCase())
-    .select("pt.*", "pn.part_number", "pn.cage", "pn.life_limit_minutes", "pn.life_limit_cycles", "pn.life_limit_days", "pn.id as pn_id");
-  if (ref.cage) query.andWhere("pn.cage", ref.cage.toUpperCase());
-  const rows = lock ? await query.forUpdate() : await query;
+// A row as mysql2 returns it; the Knex rows this code read before were as loosely typed.
+type Row = Record<string, any>;
+
+async function findUnit(sql: Sql, ref: UnitRef, lock: boolean) {
+  const rows = await sql.rows<Row>(
+    `SELECT pt.*, pn.part_number, pn.cage, pn.life_limit_minutes, pn.life_limit_cycles, pn.life_limit_days, pn.id AS pn_id
+       FROM parts pt JOIN part_numbers pn ON pn.id = pt.part_number_id
+      WHERE pn.part_number = ? AND pt.serial_number = ?${ref.cage ? " AND pn.cage = ?" : ""}${lock ? " FOR UPDATE" : ""}`,
+    [ref.partNumber.toUpperCase(), ref.serialNumber.toUpperCase(), ...(ref.cage ? [ref.cage.toUpperCase()] : [])],
+  );
   if (rows.length > 1) {
     throw new AppError("invalid", `Several units are P/N ${ref.partNumber} S/N ${ref.serialNumber}; give the CAGE code to say which.`, "invalid", { cage: "needed to tell the units apart" });
   }
@@ -58,40 +60,27 @@ const totalsOfRow = (row: Record<string, unknown>): PartTotals => ({
  * the fitted row are locked for the caller's transaction (aircraft first, then parts: one order for all
  * writers, so two swaps never wait on each other in a circle).
  */
-export async function planSwap(trx: Knex | Knex.Transaction, input: SwapCheckInput, options: { lock: boolean; now: Date }): Promise<SwapPlan> {
+export async function planSwap(sql: Sql, input: SwapCheckInput, options: { lock: boolean; now: Date }): Promise<SwapPlan> {
   const lock = options.lock;
-  const aircraftQuery = trx("aircraft").where({ registration: input.registration }).first("id", "registration", "aircraft_type_id");
-  const aircraft = lock ? await aircraftQuery.forUpdate() : await aircraftQuery;
+  const [aircraft] = await sql.rows<Row>(`SELECT id, registration, aircraft_type_id FROM aircraft WHERE registration = ? LIMIT 1${lock ? " FOR UPDATE" : ""}`, [input.registration]);
   if (!aircraft) throw new AppError("not_found", `Aircraft ${input.registration} is not in the fleet.`);
   // The position, the unit fitted there and the aircraft's latest snapshot, in one plain read (made
   // after the aircraft lock when recording, like the three reads it stands for).
-  const latest = () => trx("utilization").where({ aircraft_id: aircraft.id }).orderBy("as_of", "desc").limit(1);
-  const position = await trx("positions as p")
-    .leftJoin("fitted as f", (on) => on.on("f.position_id", "=", "p.id").andOnVal("f.aircraft_id", "=", aircraft.id))
-    .leftJoin("parts as pt", "pt.id", "f.part_id")
-    .leftJoin("part_numbers as pn", "pn.id", "pt.part_number_id")
-    .where({ "p.aircraft_type_id": aircraft.aircraft_type_id, "p.code": input.positionCode.toUpperCase() })
-    .first(
-      "p.id",
-      "p.code",
-      "p.label",
-      "p.requires_independent_inspection",
-      "p.ata_chapter",
-      "f.part_id",
-      "f.installed_seq",
-      "f.aircraft_minutes_at_install",
-      "f.aircraft_cycles_at_install",
-      "f.tsn_minutes_at_install",
-      "f.csn_at_install",
-      "f.tso_minutes_at_install",
-      "f.cso_at_install",
-      "pt.serial_number",
-      "pn.part_number",
-      "pn.cage",
-      trx.raw("? as latest_as_of", [latest().select("as_of")]),
-      trx.raw("? as latest_minutes", [latest().select("total_minutes")]),
-      trx.raw("? as latest_cycles", [latest().select("total_cycles")]),
-    );
+  const latest = (column: string) => `(SELECT u.${column} FROM utilization u WHERE u.aircraft_id = ? ORDER BY u.as_of DESC LIMIT 1)`;
+  const [position] = await sql.rows<Row>(
+    `SELECT p.id, p.code, p.label, p.requires_independent_inspection, p.ata_chapter,
+            f.part_id, f.installed_seq, f.aircraft_minutes_at_install, f.aircraft_cycles_at_install,
+            f.tsn_minutes_at_install, f.csn_at_install, f.tso_minutes_at_install, f.cso_at_install,
+            pt.serial_number, pn.part_number, pn.cage,
+            ${latest("as_of")} AS latest_as_of, ${latest("total_minutes")} AS latest_minutes, ${latest("total_cycles")} AS latest_cycles
+       FROM positions p
+       LEFT JOIN fitted f ON f.position_id = p.id AND f.aircraft_id = ?
+       LEFT JOIN parts pt ON pt.id = f.part_id
+       LEFT JOIN part_numbers pn ON pn.id = pt.part_number_id
+      WHERE p.aircraft_type_id = ? AND p.code = ?
+      LIMIT 1`,
+    [aircraft.id, aircraft.id, aircraft.id, aircraft.id, aircraft.aircraft_type_id, input.positionCode.toUpperCase()],
+  );
   if (!position) {
     throw new AppError("invalid", `${input.registration} has no position ${input.positionCode}.`, "invalid", { positionCode: `no such position on ${input.registration}` });
   }
@@ -169,13 +158,13 @@ export async function planSwap(trx: Knex | Knex.Transaction, input: SwapCheckInp
     checks.push({ name: "off part", level: "fail", code: "position_mismatch", message: `P/N ${plan.fitted.partNumber} S/N ${plan.fitted.serialNumber} is fitted at ${position.code}: scan it as the off part before installing another.` });
   }
 
-  if (input.installed) await judgeInstalledUnit(trx, input.installed, plan, { lock, now: options.now });
+  if (input.installed) await judgeInstalledUnit(sql, input.installed, plan, { lock, now: options.now });
   return plan;
 }
 
-async function judgeInstalledUnit(trx: Knex | Knex.Transaction, ref: UnitRef, plan: SwapPlan, options: { lock: boolean; now: Date }) {
+async function judgeInstalledUnit(sql: Sql, ref: UnitRef, plan: SwapPlan, options: { lock: boolean; now: Date }) {
   const checks = plan.checks;
-  const unit = await findUnit(trx, ref, options.lock);
+  const unit = await findUnit(sql, ref, options.lock);
   if (!unit) {
     checks.push({ name: "on part", level: "fail", code: "part_not_serviceable", message: `No unit P/N ${ref.partNumber} S/N ${ref.serialNumber} is on record. Stores must receive it with its release certificate first.` });
     return;
@@ -184,24 +173,21 @@ async function judgeInstalledUnit(trx: Knex | Knex.Transaction, ref: UnitRef, pl
   plan.installedUnit = { id: unit.id, partNumber: unit.part_number, serialNumber: unit.serial_number, cage: unit.cage, totals, documentId: null };
 
   // Three plain reads in one statement: eligibility, where else the unit is fitted, its latest release.
-  // Eligible: the position lists the P/N, or an alternate that the P/N may replace.
-  const eligibility = trx("position_eligibility as pe")
-    .where("pe.position_id", plan.position.id)
-    .andWhere((where) =>
-      where
-        .where("pe.part_number_id", unit.pn_id)
-        .orWhereExists(trx("part_interchange as pi").whereRaw("pi.part_number_id = pe.part_number_id").andWhere("pi.alternate_part_number_id", unit.pn_id))
-        .orWhereExists(trx("part_interchange as pi").whereRaw("pi.alternate_part_number_id = pe.part_number_id").andWhere("pi.part_number_id", unit.pn_id).andWhere("pi.two_way", true)),
-    )
-    .select("pe.part_number_id");
-  const elsewhere = () => trx("fitted as f").join("aircraft as a", "a.id", "f.aircraft_id").join("positions as p", "p.id", "f.position_id").where("f.part_id", unit.id).limit(1);
+  // Eligible: the position lists the P/N, or an alternate that the P/N may replace (one-way: the
+  // listed P/N names it as its alternate; two-way: either names the other).
   // A release certificate on file: the unit's latest receipt or return from repair cites a document.
-  const lastRelease = trx("ledger_entries").where({ part_id: unit.id }).whereIn("kind", ["received", "repaired"]).orderBy("seq", "desc").limit(1).select("document_id");
-  const facts = await trx.first(
-    trx.raw("exists ? as eligible", [eligibility]),
-    trx.raw("? as fitted_registration", [elsewhere().select("a.registration")]),
-    trx.raw("? as fitted_code", [elsewhere().select("p.code")]),
-    trx.raw("? as release_document_id", [lastRelease]),
+  const elsewhere = (column: string) =>
+    `(SELECT ${column} FROM fitted f JOIN aircraft a ON a.id = f.aircraft_id JOIN positions p ON p.id = f.position_id WHERE f.part_id = ? LIMIT 1)`;
+  const [facts] = await sql.rows<Row>(
+    `SELECT EXISTS (SELECT pe.part_number_id FROM position_eligibility pe
+                     WHERE pe.position_id = ?
+                       AND (pe.part_number_id = ?
+                            OR EXISTS (SELECT * FROM part_interchange pi WHERE pi.part_number_id = pe.part_number_id AND pi.alternate_part_number_id = ?)
+                            OR EXISTS (SELECT * FROM part_interchange pi WHERE pi.alternate_part_number_id = pe.part_number_id AND pi.part_number_id = ? AND pi.two_way = 1))) AS eligible,
+            ${elsewhere("a.registration")} AS fitted_registration,
+            ${elsewhere("p.code")} AS fitted_code,
+            (SELECT document_id FROM ledger_entries WHERE part_id = ? AND kind IN ('received', 'repaired') ORDER BY seq DESC LIMIT 1) AS release_document_id`,
+    [plan.position.id, unit.pn_id, unit.pn_id, unit.pn_id, unit.id, unit.id, unit.id],
   );
 
   checks.push(

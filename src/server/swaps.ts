@@ -12,6 +12,7 @@ import { kickOutbox, queueMail } from "./mail";
 import type { AwaitingInspection, SwapCheck, SwapResponse } from "@/lib/swap-types";
 import { checkClosedMonthAlertsLater } from "./reliability-alerts";
 import { firstFailure, planSwap } from "./swap-checks";
+import { sqlOnKnex, sqlOnPool, sqlTransaction, type Sql } from "./sql";
 
 export interface SwapResult {
   status: 201;
@@ -29,8 +30,8 @@ export function requestDigest(raw: unknown): string {
   return createHash("sha256").update(JSON.stringify(canonical(raw))).digest("hex");
 }
 
-async function storedAnswer(trx: Knex | Knex.Transaction, key: string, digest: string): Promise<SwapResult | null> {
-  const row = await trx("swaps").where({ idempotency_key: key }).first("request_hash", "response");
+async function storedAnswer(sql: Sql, key: string, digest: string): Promise<SwapResult | null> {
+  const [row] = await sql.rows<{ request_hash: string; response: string }>("SELECT request_hash, response FROM swaps WHERE idempotency_key = ? LIMIT 1", [key]);
   if (!row) return null;
   if (row.request_hash !== digest) {
     throw new AppError("invalid", "This Idempotency-Key was already used for a different swap. Use a new key for a new swap.", "idempotency_key_reused", {
@@ -68,17 +69,17 @@ export interface RecordSwapInput {
 export async function recordSwap(input: RecordSwapInput): Promise<SwapResult> {
   const now = input.now ?? new Date();
   const digest = requestDigest(input.rawBody);
-  const earlier = await storedAnswer(input.trx ?? db(), input.idempotencyKey, digest);
+  const earlier = await storedAnswer(input.trx ? sqlOnKnex(input.trx) : sqlOnPool(), input.idempotencyKey, digest);
   if (earlier) return earlier;
   assertLicenceValid(input.actor, now);
   if (input.swap.performedAt.getTime() > now.getTime() + 5 * 60_000) {
     throw new AppError("invalid", "The swap cannot be dated in the future.", "invalid", { performedAt: "is in the future" });
   }
-  if (input.trx) return writeSwap(input.trx, input, digest, now);
+  if (input.trx) return writeSwap(sqlOnKnex(input.trx), input, digest, now);
 
   for (let attempt = 1; ; attempt++) {
     try {
-      const result = await db().transaction((trx) => writeSwap(trx, input, digest, now));
+      const result = await sqlTransaction((sql) => writeSwap(sql, input, digest, now));
       // Only an unscheduled removal queues mail (see writeSwap); other swaps leave the outbox alone.
       if (result.body.swap.removed && input.swap.removalType === "unscheduled") {
         kickOutbox();
@@ -88,7 +89,7 @@ export async function recordSwap(input: RecordSwapInput): Promise<SwapResult> {
     } catch (error) {
       const code = (error as { code?: string }).code;
       if (code === "ER_DUP_ENTRY" && String((error as Error).message).includes("idempotency_key")) {
-        const answer = await storedAnswer(db(), input.idempotencyKey, digest);
+        const answer = await storedAnswer(sqlOnPool(), input.idempotencyKey, digest);
         if (answer) return answer;
       }
       // Deadlocks and (on a Galera cluster) certification failures are safe to retry: nothing was written.
@@ -98,9 +99,9 @@ export async function recordSwap(input: RecordSwapInput): Promise<SwapResult> {
   }
 }
 
-async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: string, now: Date): Promise<SwapResult> {
+async function writeSwap(sql: Sql, input: RecordSwapInput, digest: string, now: Date): Promise<SwapResult> {
   const { swap, actor } = input;
-  const plan = await planSwap(trx, swap, { lock: true, now });
+  const plan = await planSwap(sql, swap, { lock: true, now });
   // A retry with the same key (the same body, so the same aircraft) may have committed while we
   // waited for the aircraft lock. A plain read sees it: the transaction's snapshot is taken at its
   // first plain read, which planSwap makes after the aircraft lock is granted. A locking read here
@@ -109,7 +110,7 @@ async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: 
   // by that lock) is caught by the unique key on insert and answered in recordSwap. (Inside a
   // caller's transaction, as in the demo seed's replay, the snapshot may be older; that replay is
   // the only writer.)
-  const raced = await storedAnswer(trx, input.idempotencyKey, digest);
+  const raced = await storedAnswer(sql, input.idempotencyKey, digest);
   if (raced) return raced;
   const refusal = firstFailure(plan);
   if (refusal) throw refusal;
@@ -129,30 +130,35 @@ async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: 
     correctsSeq: null,
   };
 
-  if (plan.removedUnit) {
-    await trx("fitted").where({ aircraft_id: plan.aircraft.id, position_id: plan.position.id }).delete();
-    await trx("parts").where({ id: plan.removedUnit.id }).update({
-      status: "unserviceable",
-      bin: null,
-      tsn_minutes: plan.removedUnit.totals.tsnMinutes,
-      csn: plan.removedUnit.totals.csn,
-      tso_minutes: plan.removedUnit.totals.tsoMinutes,
-      cso: plan.removedUnit.totals.cso,
-      updated_at: now,
-    });
-  }
-  if (plan.installedUnit) {
-    await trx("parts").where({ id: plan.installedUnit.id }).update({ status: "installed", bin: null, updated_at: now });
+  // Both units' rows in one statement: the removed unit goes unserviceable with its totals as they
+  // stand now, the installed one is installed (its totals move on only when it next comes off).
+  const removed = plan.removedUnit;
+  const installed = plan.installedUnit;
+  if (removed && installed) {
+    await sql.run(
+      `UPDATE parts SET status = IF(id = ?, 'unserviceable', 'installed'), bin = NULL,
+              tsn_minutes = IF(id = ?, ?, tsn_minutes), csn = IF(id = ?, ?, csn), tso_minutes = IF(id = ?, ?, tso_minutes), cso = IF(id = ?, ?, cso), updated_at = ?
+        WHERE id IN (?, ?)`,
+      [removed.id, removed.id, removed.totals.tsnMinutes, removed.id, removed.totals.csn, removed.id, removed.totals.tsoMinutes, removed.id, removed.totals.cso, now, removed.id, installed.id],
+    );
+  } else if (removed) {
+    await sql.run("UPDATE parts SET status = 'unserviceable', bin = NULL, tsn_minutes = ?, csn = ?, tso_minutes = ?, cso = ?, updated_at = ? WHERE id = ?", [
+      removed.totals.tsnMinutes, removed.totals.csn, removed.totals.tsoMinutes, removed.totals.cso, now, removed.id,
+    ]);
+  } else if (installed) {
+    await sql.run("UPDATE parts SET status = 'installed', bin = NULL, updated_at = ? WHERE id = ?", [now, installed.id]);
   }
   // The snapshot becomes the aircraft's newest utilisation when it is newer than the last one.
   if (!plan.latestSnapshot || performedAt > plan.latestSnapshot.asOf) {
-    await trx("utilization").insert({ aircraft_id: plan.aircraft.id, as_of: performedAt, total_minutes: swap.aircraftHours, total_cycles: swap.aircraftCycles, recorded_by: actor.id, recorded_at: now });
+    await sql.run("INSERT INTO utilization (aircraft_id, as_of, total_minutes, total_cycles, recorded_by, recorded_at) VALUES (?, ?, ?, ?, ?, ?)", [
+      plan.aircraft.id, performedAt, swap.aircraftHours, swap.aircraftCycles, actor.id, now,
+    ]);
   }
 
   if (plan.removedUnit && swap.removalType === "unscheduled") {
-    const engineers = await trx("users").where({ role: "reliability", status: "active" }).select("email");
+    const engineers = await sql.rows<{ email: string }>("SELECT email FROM users WHERE role = 'reliability' AND status = 'active'");
     await queueMail(
-      trx,
+      sql,
       engineers.map((e) => ({
         to: e.email,
         subject: `Unscheduled removal: ${plan.removedUnit!.partNumber} S/N ${plan.removedUnit!.serialNumber} from ${plan.aircraft.registration} ${plan.position.code}`,
@@ -171,7 +177,7 @@ async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: 
     );
   }
 
-  const entries = await appendLedgerEntries(trx, [
+  const entries = await appendLedgerEntries(sql, [
     ...(plan.removedUnit
       ? [{
           ...common,
@@ -207,22 +213,27 @@ async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: 
   const removedSeq = plan.removedUnit ? entries[0].seq : null;
   const installedSeq = plan.installedUnit ? entries[entries.length - 1].seq : null;
   // The fitted row carries the installation's seq, so it is written once the ledger has numbered it
-  // (one statement under the head lock, as the update of a placeholder seq was).
-  if (plan.installedUnit && installedSeq) {
-    const totals = plan.installedUnit.totals;
-    await trx("fitted").insert({
-      aircraft_id: plan.aircraft.id,
-      position_id: plan.position.id,
-      part_id: plan.installedUnit.id,
-      installed_seq: installedSeq,
-      installed_at: performedAt,
-      aircraft_minutes_at_install: swap.aircraftHours,
-      aircraft_cycles_at_install: swap.aircraftCycles,
-      tsn_minutes_at_install: totals.tsnMinutes,
-      csn_at_install: totals.csn,
-      tso_minutes_at_install: totals.tsoMinutes,
-      cso_at_install: totals.cso,
-    });
+  // (one statement under the head lock): the new unit replaces the old in its row, takes an empty
+  // position's new row, or the row goes with a removal that fits nothing.
+  if (installed && installedSeq) {
+    const atInstall = [installed.id, installedSeq, performedAt, swap.aircraftHours, swap.aircraftCycles, installed.totals.tsnMinutes, installed.totals.csn, installed.totals.tsoMinutes, installed.totals.cso];
+    if (removed) {
+      await sql.run(
+        `UPDATE fitted SET part_id = ?, installed_seq = ?, installed_at = ?, aircraft_minutes_at_install = ?, aircraft_cycles_at_install = ?,
+                tsn_minutes_at_install = ?, csn_at_install = ?, tso_minutes_at_install = ?, cso_at_install = ?
+          WHERE aircraft_id = ? AND position_id = ?`,
+        [...atInstall, plan.aircraft.id, plan.position.id],
+      );
+    } else {
+      await sql.run(
+        `INSERT INTO fitted (part_id, installed_seq, installed_at, aircraft_minutes_at_install, aircraft_cycles_at_install,
+                tsn_minutes_at_install, csn_at_install, tso_minutes_at_install, cso_at_install, aircraft_id, position_id)
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+        [...atInstall, plan.aircraft.id, plan.position.id],
+      );
+    }
+  } else if (removed) {
+    await sql.run("DELETE FROM fitted WHERE aircraft_id = ? AND position_id = ?", [plan.aircraft.id, plan.position.id]);
   }
 
   const id = input.id ?? randomUUID();
@@ -247,27 +258,17 @@ async function writeSwap(trx: Knex.Transaction, input: RecordSwapInput, digest: 
       entries,
     },
   };
-  await trx("swaps").insert({
-    id,
-    idempotency_key: input.idempotencyKey,
-    request_hash: digest,
-    aircraft_id: plan.aircraft.id,
-    position_id: plan.position.id,
-    removed_seq: removedSeq,
-    installed_seq: installedSeq,
-    performed_by: actor.id,
-    inspected_by: null,
-    performed_at: performedAt,
-    inspected_at: null,
-    response: JSON.stringify(result.body),
-    created_at: now,
-  });
+  await sql.run(
+    `INSERT INTO swaps (id, idempotency_key, request_hash, aircraft_id, position_id, removed_seq, installed_seq, performed_by, inspected_by, performed_at, inspected_at, response, created_at)
+     VALUES (?, ?, ?, ?, ?, ?, ?, ?, NULL, ?, NULL, ?, ?)`,
+    [id, input.idempotencyKey, digest, plan.aircraft.id, plan.position.id, removedSeq, installedSeq, actor.id, performedAt, JSON.stringify(result.body), now],
+  );
   return result;
 }
 
 /** The pre-install checks the technician sees before anything is written (no locks, no writes). */
 export async function checkSwap(swap: SwapCheckInput, now = new Date()): Promise<{ checks: SwapCheck[]; ok: boolean; fitted: { partNumber: string; serialNumber: string; cage: string } | null }> {
-  const plan = await planSwap(db(), swap, { lock: false, now });
+  const plan = await planSwap(sqlOnPool(), swap, { lock: false, now });
   return {
     checks: plan.checks,
     ok: !plan.checks.some((c) => c.level === "fail"),
