@@ -13,7 +13,7 @@
 // through recordSwap like any other. Run by seed 04 under `--conditions=react-server`.
 import { formatFlightTime } from "@/domain/flight-time";
 import { SwapSchema } from "@/lib/schemas/swaps";
-import { db } from "@/server/db";
+import { closeDatabase, db } from "@/server/db";
 import { appendLedgerEntries } from "@/server/ledger";
 import { lastOutboxId, withdrawQueuedMail } from "@/server/mail";
 import { putObject } from "@/server/storage";
@@ -146,9 +146,9 @@ async function main() {
 }
 
 main()
-  .then(() => db().destroy())
+  .then(() => closeDatabase())
   .catch(async (error) => {
     console.error(error);
-    await db().destroy().catch(() => {});
+    await closeDatabase().catch(() => {});
     process.exit(1);
   });

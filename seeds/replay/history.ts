@@ -12,7 +12,7 @@
 // Run by seed 03 in a child process under `--conditions=react-server` (see seeds/lib/server-script.ts).
 import { formatFlightTime } from "@/domain/flight-time";
 import { SwapSchema } from "@/lib/schemas/swaps";
-import { db } from "@/server/db";
+import { closeDatabase, db } from "@/server/db";
 import { appendLedgerEntries, type NewLedgerEntry } from "@/server/ledger";
 import { lastOutboxId, withdrawQueuedMail } from "@/server/mail";
 import { countersignSwap, recordSwap } from "@/server/swaps";
@@ -268,10 +268,10 @@ async function updateParts(trx: Knex.Transaction, updates: Map<number, Record<st
 
 main()
   .then(async () => {
-    await db().destroy();
+    await closeDatabase();
   })
   .catch(async (error) => {
     console.error(error);
-    await db().destroy().catch(() => {});
+    await closeDatabase().catch(() => {});
     process.exit(1);
   });

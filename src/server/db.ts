@@ -37,3 +37,11 @@ export function pool(): mysql.Pool {
 }
 
 export type Trx = Knex | Knex.Transaction;
+
+/** Closes both pools, for a script that must exit when its work is done (the demo seed's replays). */
+export async function closeDatabase(): Promise<void> {
+  const { threadlineKnex, threadlinePool } = globalForDb;
+  globalForDb.threadlineKnex = undefined;
+  globalForDb.threadlinePool = undefined;
+  await Promise.all([threadlineKnex?.destroy(), threadlinePool?.end()]);
+}

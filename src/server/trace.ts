@@ -6,6 +6,7 @@ import type { LedgerKind, PartStatus } from "@/domain/ledger-types";
 import { db, type Trx } from "./db";
 import { notFound } from "./errors";
 import { rowToEntry } from "./ledger";
+import { asSql, sqlOnPool, type Sql } from "./sql";
 
 // The auditor's trace: one serial's thread straight from the ledger, with the continuity findings
 // computed on it. The facts the check needs (entries, certificates, eligibility with alternates,
@@ -155,49 +156,46 @@ interface LoadedThreads {
  * their part numbers and limits, the positions each part number may occupy (alternates as the
  * swap checks allow them), every aircraft's type, and the release certificates their entries cite.
  */
-async function loadThreads(partIds: number[], trx: Trx, withDisplay: boolean): Promise<LoadedThreads> {
+async function loadThreads(partIds: number[], runner: Trx | Sql, withDisplay: boolean): Promise<LoadedThreads> {
   const facts = new Map<number, ThreadFacts>();
   const rowsByPart = new Map<number, EntryRow[]>();
   const partRows = new Map<number, EntryRow>();
   if (partIds.length === 0) return { facts, rows: rowsByPart, parts: partRows };
+  const sql = asSql(runner);
 
-  const entryQuery = trx("ledger_entries as e")
-    .leftJoin("documents as d", "d.id", "e.document_id")
-    .whereIn("e.part_id", partIds)
-    .orderBy("e.seq")
-    .select("e.*", "d.kind as document_kind");
-  if (withDisplay) {
-    entryQuery
-      .leftJoin("aircraft as a", "a.id", "e.aircraft_id")
-      .leftJoin("positions as p", "p.id", "e.position_id")
-      .leftJoin("users as us", "us.id", "e.recorded_by")
-      .select(
-        "a.registration",
-        "p.code as position_code",
-        "p.label as position_label",
-        "us.name as signer_name",
-        "us.licence_number as signer_licence",
-        "d.form_type as document_form_type",
-        "d.tracking_number as document_tracking_number",
-        "d.status_work as document_status_work",
-        "d.issuer_name as document_issuer_name",
-        "d.issuer_approval as document_issuer_approval",
-        "d.sha256 as document_sha256",
-      );
-  }
+  // Written out rather than built: the trace is read per request, and the builder's work was a
+  // tenth of it (see src/server/sql.ts). `IN (?)` takes the array as a list.
+  const display = withDisplay
+    ? {
+        columns: `, a.registration, p.code AS position_code, p.label AS position_label, us.name AS signer_name, us.licence_number AS signer_licence,
+                  d.form_type AS document_form_type, d.tracking_number AS document_tracking_number, d.status_work AS document_status_work,
+                  d.issuer_name AS document_issuer_name, d.issuer_approval AS document_issuer_approval, d.sha256 AS document_sha256`,
+        joins: " LEFT JOIN aircraft a ON a.id = e.aircraft_id LEFT JOIN positions p ON p.id = e.position_id LEFT JOIN users us ON us.id = e.recorded_by",
+      }
+    : { columns: "", joins: "" };
   const [parts, entryRows, aircraft, positions] = await Promise.all([
-    trx("parts as pt")
-      .join("part_numbers as pn", "pn.id", "pt.part_number_id")
-      .whereIn("pt.id", partIds)
-      .select("pt.id", "pt.serial_number", "pt.status", "pt.manufactured_on", "pn.id as pn_id", "pn.part_number", "pn.cage", "pn.description", "pn.ata_chapter", "pn.life_limit_minutes", "pn.life_limit_cycles", "pn.life_limit_days"),
-    entryQuery,
-    trx("aircraft").select("id", "aircraft_type_id", "registration"),
-    trx("positions as p")
-      .whereIn("p.id", trx("ledger_entries").whereIn("part_id", partIds).whereNotNull("position_id").distinct("position_id"))
-      .select("p.id", "p.code"),
+    sql.rows<EntryRow>(
+      `SELECT pt.id, pt.serial_number, pt.status, pt.manufactured_on, pn.id AS pn_id, pn.part_number, pn.cage, pn.description, pn.ata_chapter,
+              pn.life_limit_minutes, pn.life_limit_cycles, pn.life_limit_days
+         FROM parts pt JOIN part_numbers pn ON pn.id = pt.part_number_id
+        WHERE pt.id IN (?)`,
+      [partIds],
+    ),
+    sql.rows<EntryRow>(
+      `SELECT e.*, d.kind AS document_kind${display.columns}
+         FROM ledger_entries e LEFT JOIN documents d ON d.id = e.document_id${display.joins}
+        WHERE e.part_id IN (?)
+        ORDER BY e.seq`,
+      [partIds],
+    ),
+    sql.rows<EntryRow>("SELECT id, aircraft_type_id, registration FROM aircraft"),
+    sql.rows<EntryRow>(
+      "SELECT p.id, p.code FROM positions p WHERE p.id IN (SELECT DISTINCT position_id FROM ledger_entries WHERE part_id IN (?) AND position_id IS NOT NULL)",
+      [partIds],
+    ),
   ]);
   const pnIds = [...new Set(parts.map((p) => Number(p.pn_id)))];
-  const eligibility = await eligiblePositions(pnIds, trx);
+  const eligibility = await eligiblePositions(pnIds, sql);
 
   for (const row of entryRows) {
     const list = rowsByPart.get(Number(row.part_id)) ?? [];
@@ -237,11 +235,11 @@ async function loadThreads(partIds: number[], trx: Trx, withDisplay: boolean): P
  * alternate of (one-way: the alternate replaces the listed P/N; two-way also the reverse),
  * exactly as src/server/swap-checks.ts judges an installation.
  */
-async function eligiblePositions(pnIds: number[], trx: Trx): Promise<Map<number, Array<{ positionId: number; aircraftTypeId: number }>>> {
+async function eligiblePositions(pnIds: number[], sql: Sql): Promise<Map<number, Array<{ positionId: number; aircraftTypeId: number }>>> {
   const out = new Map<number, Array<{ positionId: number; aircraftTypeId: number }>>();
   if (pnIds.length === 0) return out;
   const marks = pnIds.map(() => "?").join(",");
-  const [rows] = await trx.raw(
+  const rows = await sql.rows(
     `SELECT pe.part_number_id AS pn_id, pe.position_id, p.aircraft_type_id
        FROM position_eligibility pe JOIN positions p ON p.id = pe.position_id
       WHERE pe.part_number_id IN (${marks})
@@ -284,7 +282,7 @@ function checkThread(facts: ThreadFacts): TraceFinding[] {
  * ones, since the facts for many units come in one read. Screens that only show counts read them
  * through the cache in thread-findings.ts, which calls this for the units whose thread changed.
  */
-export async function checkFindingCounts(partIds: number[], trx: Trx = db()): Promise<Map<number, number>> {
+export async function checkFindingCounts(partIds: number[], trx: Trx | Sql = sqlOnPool()): Promise<Map<number, number>> {
   const { facts } = await loadThreads(partIds, trx, false);
   const counts = new Map<number, number>();
   for (const [partId, threadFacts] of facts) counts.set(partId, checkThread(threadFacts).length);
@@ -292,7 +290,7 @@ export async function checkFindingCounts(partIds: number[], trx: Trx = db()): Pr
 }
 
 /** The findings of one unit's thread. */
-export async function getPartFindings(partId: number, trx: Trx = db()): Promise<TraceFinding[]> {
+export async function getPartFindings(partId: number, trx: Trx | Sql = sqlOnPool()): Promise<TraceFinding[]> {
   const { facts } = await loadThreads([partId], trx, false);
   const threadFacts = facts.get(partId);
   if (!threadFacts) throw notFound(`Part ${partId}`);
@@ -320,18 +318,18 @@ const CHANGE_FIELDS: Array<[string, (row: EntryRow) => string | null]> = [
 ];
 
 /** One unit's whole thread, every entry in seq order from its first receipt, with its findings. */
-export async function getPartTrace(partId: number, trx: Trx = db()): Promise<PartTrace> {
-  const { facts, rows, parts } = await loadThreads([partId], trx, true);
+export async function getPartTrace(partId: number, runner: Trx | Sql = sqlOnPool()): Promise<PartTrace> {
+  const { facts, rows, parts } = await loadThreads([partId], runner, true);
   const threadFacts = facts.get(partId);
   if (!threadFacts) throw notFound(`Part ${partId}`);
   const entryRows = rows.get(partId) ?? [];
 
-  const swapSigners = entryRows.length
-    ? await trx("swaps as s")
-        .join("users as u", "u.id", "s.inspected_by")
-        .whereIn("s.removed_seq", entryRows.map((r) => r.seq))
-        .orWhereIn("s.installed_seq", entryRows.map((r) => r.seq))
-        .select("s.removed_seq", "s.installed_seq", "u.name", "u.licence_number")
+  const seqs = entryRows.map((row) => row.seq);
+  const swapSigners = seqs.length
+    ? await asSql(runner).rows<EntryRow>(
+        "SELECT s.removed_seq, s.installed_seq, u.name, u.licence_number FROM swaps s JOIN users u ON u.id = s.inspected_by WHERE s.removed_seq IN (?) OR s.installed_seq IN (?)",
+        [seqs, seqs],
+      )
     : [];
   const inspectorOf = new Map<number, TraceSigner>();
   for (const s of swapSigners) {
