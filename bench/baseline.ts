@@ -42,7 +42,7 @@ async function trace(pool: mysql.Pool, sessionId: string, partId: number) {
       [partId],
     ),
     rows(pool, "SELECT p.id, p.code FROM positions p WHERE p.id IN (SELECT DISTINCT position_id FROM ledger_entries WHERE part_id IN (?) AND position_id IS NOT NULL)", [partId]),
-    rows(pool, "SELECT id, aircraft_type_id, registration FROM aircraft"),
+    rows(pool, "SELECT a.id, a.aircraft_type_id, a.registration FROM aircraft a WHERE a.id IN (SELECT DISTINCT aircraft_id FROM ledger_entries WHERE part_id IN (?) AND aircraft_id IS NOT NULL)", [partId]),
   ]);
   const pnId = part[0]?.pn_id;
   const eligibility = await rows(

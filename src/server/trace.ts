@@ -154,7 +154,7 @@ interface LoadedThreads {
 /**
  * Reads everything the continuity check needs for the given units: their entries (one query),
  * their part numbers and limits, the positions each part number may occupy (alternates as the
- * swap checks allow them), every aircraft's type, and the release certificates their entries cite.
+ * swap checks allow them), the type of every aircraft they name, and the release certificates their entries cite.
  */
 async function loadThreads(partIds: number[], runner: Trx | Sql, withDisplay: boolean): Promise<LoadedThreads> {
   const facts = new Map<number, ThreadFacts>();
@@ -188,7 +188,11 @@ async function loadThreads(partIds: number[], runner: Trx | Sql, withDisplay: bo
         ORDER BY e.seq`,
       [partIds],
     ),
-    sql.rows<EntryRow>("SELECT id, aircraft_type_id, registration FROM aircraft"),
+    // Only the airframes the thread names: the check reads nothing of the others.
+    sql.rows<EntryRow>(
+      "SELECT a.id, a.aircraft_type_id, a.registration FROM aircraft a WHERE a.id IN (SELECT DISTINCT aircraft_id FROM ledger_entries WHERE part_id IN (?) AND aircraft_id IS NOT NULL)",
+      [partIds],
+    ),
     sql.rows<EntryRow>(
       "SELECT p.id, p.code FROM positions p WHERE p.id IN (SELECT DISTINCT position_id FROM ledger_entries WHERE part_id IN (?) AND position_id IS NOT NULL)",
       [partIds],
