@@ -226,7 +226,8 @@ export function baselineServer(pool: mysql.Pool): http.Server {
         for await (const chunk of req) chunks.push(chunk as Buffer);
         body = await swap(pool, sessionOf(req), JSON.parse(Buffer.concat(chunks).toString()) as BaselineSwap);
       } else {
-        res.writeHead(404).end();
+        // The app's answer to an address no route serves, for the framework-floor comparison.
+        res.writeHead(404, { "content-type": "application/json" }).end(JSON.stringify({ error: { code: "no_such_route", message: `There is no API route ${req.method} ${url.pathname}.` } }));
         return;
       }
       res.writeHead(200, { "content-type": "application/json" }).end(JSON.stringify(body));

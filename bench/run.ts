@@ -22,7 +22,7 @@ import { openSqlLog, statementShape, type SqlLog } from "./sql-log";
 
 const log = (message: string) => process.stdout.write(`[bench] ${message}\n`);
 const SHOW_SQL = process.argv.includes("--show-sql");
-/** `--only trace,csv` measures just those groups: trace, aircraft, swaps, csv, verify, js. */
+/** `--only trace,csv` measures just those groups: floor, trace, aircraft, swaps, csv, verify, js. */
 const ONLY = process.argv.find((arg, i) => process.argv[i - 1] === "--only")?.split(",") ?? null;
 const wanted = (group: string) => !ONLY || ONLY.includes(group);
 /** `--profile-app DIR` runs the app under `node --cpu-prof`; its profile lands in DIR when the run ends. */
@@ -67,6 +67,7 @@ async function main() {
   ensureBuild(projectRoot, log);
   const stoppers: Array<() => Promise<void>> = [];
   const figures: Figure[] = [];
+  const floor: string[] = [];
   try {
     const server = await startMariadb({ dataDir: BENCH.dataDir, port: BENCH.dbPort, extraArgs: BENCH_DB_ARGS, log });
     stoppers.push(() => server.stop());
@@ -123,6 +124,7 @@ async function main() {
       for (const f of list) log(`${f.name}: ${f.threadline} ${f.unit} (baseline ${f.baseline ?? "-"}, ratio ${f.ratio ?? "-"}, goal ${f.goal})`);
       figures.push(...list);
     };
+    if (wanted("floor")) floor.push(...(await frameworkFloor(sides)));
     if (wanted("trace")) measured(await traceFigure(sides, auditor, get));
     if (wanted("aircraft")) measured(await aircraftFigure(sides, technician, get));
     if (wanted("swaps")) measured(...(await swapFigures(sides, { technician, stores })));
@@ -133,10 +135,36 @@ async function main() {
     for (const stop of stoppers.reverse()) await stop().catch((error) => log(`while stopping: ${error}`));
   }
   printTable(figures);
+  if (floor.length) {
+    console.log("\ncontext (no goal): what the framework alone costs on this machine, a route that does no work (JSON 404)");
+    for (const line of floor) console.log(`  ${line}`);
+  }
   writeFileSync(path.join(projectRoot, "bench", "results.json"), JSON.stringify({ figures }, null, 2) + "\n");
 }
 
 type Get = (url: string, cookie: string) => Promise<string>;
+
+/**
+ * The framework's own cost per request: the app's answer to an API address no route serves (no
+ * session, no SQL) against the bare server's same answer. It bounds every ratio below: a route can
+ * be no closer to its baseline than this.
+ */
+async function frameworkFloor(sides: Sides): Promise<string[]> {
+  const miss = async (base: string, i: number) => {
+    const response = await fetch(`${base}/api/no-such-route-${i % 50}`, { headers: PLAIN });
+    await response.text();
+    if (response.status !== 404) throw new Error(`${base}: ${response.status}`);
+  };
+  for (let i = 0; i < 50; i++) await Promise.all([miss(sides.appUrl, i), miss(sides.baseUrl, i)]);
+  const [app, base] = await interleaved(10, READS / 10, (i) => miss(sides.appUrl, i), (i) => miss(sides.baseUrl, i));
+  const appRate = await throughput(2000, CLIENTS, (i) => miss(sides.appUrl, i));
+  const baseRate = await throughput(2000, CLIENTS, (i) => miss(sides.baseUrl, i));
+  const r = (v: number) => Math.round(v * 100) / 100;
+  return [
+    `p50, one client: app ${r(p50(app))} ms, bare ${r(p50(base))} ms (ratio ${r(p50(app) / p50(base))}; the app's extra ${r(p50(app) - p50(base))} ms falls on every request)`,
+    `requests per second, ${CLIENTS} clients: app ${Math.round(appRate)}, bare ${Math.round(baseRate)} (ratio ${r(appRate / baseRate)})`,
+  ];
+}
 
 /** One serial's trace, p50 over many units, both sides alternating in rounds. */
 async function traceFigure(sides: Sides, auditor: string, get: Get): Promise<Figure> {
