@@ -3,8 +3,8 @@ import { apiFetch } from "@/lib/api-client";
 
 // Shapes of the ledger check's answers as the browser sees them.
 export type LedgerVerifyResponse =
-  | { ok: true; entries: number; head: string; headSeq: number; checkedAt: string; durationMs: number }
-  | { ok: false; brokenAt: number; reason: string; entries: number; foundSeq: number; message: string; detail?: string; checkedAt: string; durationMs: number };
+  | { ok: true; entries: number; head: string; headSeq: number; checkedAt: string; durationMs: number; segments: number }
+  | { ok: false; brokenAt: number; reason: string; entries: number; foundSeq: number; message: string; detail?: string; checkedAt: string; durationMs: number; segments: number };
 
 export interface LedgerEntryHashResponse {
   entry: { seq: number; kind: string; partId: number; prevHash: string; hash: string };
