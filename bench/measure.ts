@@ -34,6 +34,34 @@ export async function throughput(count: number, clients: number, once: (i: numbe
   return count / ((performance.now() - started) / 1000);
 }
 
+/**
+ * Calls per second of each side with `clients` callers, the sides taking turns in rounds (as
+ * `interleaved` does for latencies), so that a slow spell of the machine falls on both alike.
+ * `around` wraps each side's turn (to count what happened during it).
+ */
+export async function interleavedThroughput(
+  rounds: number,
+  perRound: number,
+  clients: number,
+  a: (i: number) => Promise<void>,
+  b: (i: number) => Promise<void>,
+  around: (side: "a" | "b", turn: () => Promise<void>) => Promise<void> = (_, turn) => turn(),
+): Promise<[number, number]> {
+  const seconds = { a: 0, b: 0 };
+  for (let r = 0; r < rounds; r++) {
+    for (const [side, once] of [["a", a], ["b", b]] as const) {
+      await around(side, async () => {
+        let next = 0;
+        const started = performance.now();
+        await Promise.all(Array.from({ length: clients }, async () => { while (next < perRound) await once(r * perRound + next++); }));
+        seconds[side] += (performance.now() - started) / 1000;
+        if (process.env.BENCH_TURNS) console.log(`turn ${r} ${side}: ${Math.round(perRound / ((performance.now() - started) / 1000))}/s`);
+      });
+    }
+  }
+  return [(rounds * perRound) / seconds.a, (rounds * perRound) / seconds.b];
+}
+
 /** Alternates the two sides in rounds, so a burst of load on the machine falls on both alike. */
 export async function interleaved(rounds: number, perRound: number, a: (i: number) => Promise<void>, b: (i: number) => Promise<void>): Promise<[number[], number[]]> {
   const timesA: number[] = [];

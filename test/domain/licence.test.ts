@@ -32,6 +32,10 @@ describe("dateInZone", () => {
   it("gives the local calendar date of an instant", () => {
     const instant = new Date("2026-11-30T23:30:00Z");
     expect(dateInZone(instant, "UTC")).toBe("2026-11-30");
+    // The UTC shortcut and the time-zone formatter agree on the last and first millisecond of a day.
+    for (const edge of ["2026-11-30T23:59:59.999Z", "2026-12-01T00:00:00.000Z", "2028-02-29T12:00:00.000Z"]) {
+      expect(dateInZone(new Date(edge), "UTC")).toBe(dateInZone(new Date(edge), "Etc/UTC"));
+    }
     expect(dateInZone(instant, "Europe/Helsinki")).toBe("2026-12-01"); // UTC+2 in winter
     expect(dateInZone(instant, "Europe/Lisbon")).toBe("2026-11-30"); // UTC+0 in winter
   });
