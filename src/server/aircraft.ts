@@ -23,16 +23,10 @@ export interface AircraftSummary {
   asOf: string | null;
 }
 
-function latestUtilizationQuery(knex: Knex) {
-  return knex("utilization as u")
-    .join(
-      knex("utilization").select("aircraft_id").max({ as_of: "as_of" }).groupBy("aircraft_id").as("latest"),
-      function () {
-        this.on("latest.aircraft_id", "u.aircraft_id").andOn("latest.as_of", "u.as_of");
-      },
-    )
-    .select("u.aircraft_id", "u.as_of", "u.total_minutes", "u.total_cycles");
-}
+// Each aircraft's latest snapshot by one descending dive into the (aircraft_id, as_of) index. A join
+// to a grouped MAX(as_of) looked equivalent, but on a freshly loaded table (stale index statistics)
+// MariaDB evaluated it as a lateral table per snapshot row: a second per fleet-list request.
+const LATEST_UTILIZATION_ID = "(SELECT u.id FROM utilization u WHERE u.aircraft_id = a.id ORDER BY u.as_of DESC LIMIT 1)";
 
 function toSummary(row: Record<string, any>): AircraftSummary {
   const minutes = Number(row.total_minutes ?? 0);
@@ -57,7 +51,7 @@ function aircraftBaseQuery(trx: Trx) {
   return trx("aircraft as a")
     .join("aircraft_types as t", "t.id", "a.aircraft_type_id")
     .join("stations as s", "s.id", "a.station_id")
-    .leftJoin(latestUtilizationQuery(db()).as("lu"), "lu.aircraft_id", "a.id")
+    .leftJoin("utilization as lu", "lu.id", trx.raw(LATEST_UTILIZATION_ID))
     .select(
       "a.id",
       "a.registration",
