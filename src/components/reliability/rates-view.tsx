@@ -2,9 +2,9 @@
 
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
-import { usePathname } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { ApiError, searchString } from "@/lib/fetch-json";
+import { useSearchInAddress } from "@/lib/use-search-in-address";
 import type { ReliabilityAnswer, WeibullAnswer } from "@/lib/schemas/reliability";
 import { RatesForm } from "./rates-form";
 import { MonthTable } from "./month-table";
@@ -30,7 +30,6 @@ export function RatesView({
   partNumbers: string[];
   chapters: string[];
 }) {
-  const pathname = usePathname();
   const [params, setParams] = useState<RatesParams>(initialParams);
   const hasSubject = Boolean(params.partNumber || params.ataChapter);
   const sameAsInitial = JSON.stringify(params) === JSON.stringify(initialParams);
@@ -41,9 +40,7 @@ export function RatesView({
     placeholderData: (previous) => previous,
   });
 
-  useEffect(() => {
-    window.history.replaceState(null, "", `${pathname}${searchString({ ...params })}`);
-  }, [params, pathname]);
+  useSearchInAddress(searchString({ ...params }));
 
   const errors = query.error instanceof ApiError ? query.error.fields : {};
   const data = hasSubject ? query.data : undefined;

@@ -1,9 +1,9 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { usePathname } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { ApiError, searchString } from "@/lib/fetch-json";
+import { useSearchInAddress } from "@/lib/use-search-in-address";
 import type { RemovalFilterValues, RemovalListAnswer, RemovalSort } from "@/lib/schemas/reliability";
 import { RemovalFilters, type FilterOptions } from "./removal-filters";
 import { RemovalsTable } from "./removals-table";
@@ -27,7 +27,6 @@ export function RemovalsReport({
   initialData: RemovalListAnswer | null;
   options: FilterOptions;
 }) {
-  const pathname = usePathname();
   const [filters, setFilters] = useState<RemovalFilterValues>(initialFilters);
   const [page, setPage] = useState<RemovalPageParams>(initialPage);
   const sameAsInitial = JSON.stringify([filters, page]) === JSON.stringify([initialFilters, initialPage]);
@@ -37,11 +36,9 @@ export function RemovalsReport({
     placeholderData: (previous) => previous,
   });
 
-  useEffect(() => {
-    const { pageSize: _pageSize, ...rest } = page;
-    const withoutDefaults = { ...rest, page: rest.page === 1 ? undefined : rest.page, sort: rest.sort === "removedAt" ? undefined : rest.sort, dir: rest.dir === "desc" ? undefined : rest.dir };
-    window.history.replaceState(null, "", `${pathname}${searchString({ ...filters, ...withoutDefaults })}`);
-  }, [filters, page, pathname]);
+  const { pageSize: _pageSize, ...pageRest } = page;
+  const withoutDefaults = { ...pageRest, page: pageRest.page === 1 ? undefined : pageRest.page, sort: pageRest.sort === "removedAt" ? undefined : pageRest.sort, dir: pageRest.dir === "desc" ? undefined : pageRest.dir };
+  useSearchInAddress(searchString({ ...filters, ...withoutDefaults }));
 
   const fieldErrors = query.error instanceof ApiError ? query.error.fields : {};
   const data = query.data;

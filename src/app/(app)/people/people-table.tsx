@@ -2,7 +2,6 @@
 
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
-import { usePathname } from "next/navigation";
 import { useEffect, useState } from "react";
 import { AccountStatusBadge } from "@/components/people/account-status-badge";
 import { LicenceBadge } from "@/components/people/licence-badge";
@@ -11,12 +10,12 @@ import { usersQuery, type UserFilters, type UsersAnswer } from "@/lib/people-que
 import { ROLE_LABELS, ROLES } from "@/lib/roles";
 import { ACCOUNT_STATUSES } from "@/lib/schemas/people";
 import { searchString } from "@/lib/fetch-json";
+import { useSearchInAddress } from "@/lib/use-search-in-address";
 
 const STATUS_WORDS = { invited: "Invited", active: "Active", deactivated: "Deactivated" } as const;
 const LICENCE_WORDS = { expiring: "Expiring within 30 days", expired: "Expired", valid: "Valid", none: "No expiry on file" } as const;
 
 export function PeopleTable({ initialFilters, initialData, timeZone }: { initialFilters: UserFilters; initialData: UsersAnswer; timeZone: string }) {
-  const pathname = usePathname();
   const [filters, setFilters] = useState<UserFilters>(initialFilters);
   const [search, setSearch] = useState(initialFilters.q ?? "");
   const sameAsInitial = JSON.stringify(filters) === JSON.stringify(initialFilters);
@@ -24,15 +23,14 @@ export function PeopleTable({ initialFilters, initialData, timeZone }: { initial
 
   // Typing searches after a short pause rather than on every key.
   useEffect(() => {
-    const timer = setTimeout(() => setFilters((current) => ({ ...current, q: search.trim() || undefined })), 250);
+    const q = search.trim() || undefined;
+    // Unchanged text leaves the filters (and so the address) alone: a needless history update just
+    // after the page loads could cut short a link the user is already following.
+    const timer = setTimeout(() => setFilters((current) => (current.q === q ? current : { ...current, q })), 250);
     return () => clearTimeout(timer);
   }, [search]);
 
-  // The address keeps the filters, so a reload or a shared link shows the same list; the native
-  // history call skips a server render that the query below makes unnecessary.
-  useEffect(() => {
-    window.history.replaceState(null, "", `${pathname}${searchString({ ...filters })}`);
-  }, [filters, pathname]);
+  useSearchInAddress(searchString({ ...filters }));
 
   const set = (key: keyof UserFilters) => (event: React.ChangeEvent<HTMLSelectElement>) =>
     setFilters((current) => ({ ...current, [key]: event.target.value || undefined }));

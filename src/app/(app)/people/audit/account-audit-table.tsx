@@ -1,11 +1,11 @@
 "use client";
 
 import { useInfiniteQuery } from "@tanstack/react-query";
-import { usePathname } from "next/navigation";
 import { useEffect, useState } from "react";
 import { AccountEventTable } from "@/components/people/account-event-list";
 import { ACCOUNT_EVENT_KINDS, ACCOUNT_EVENT_LABELS } from "@/lib/account-events";
 import { searchString } from "@/lib/fetch-json";
+import { useSearchInAddress } from "@/lib/use-search-in-address";
 import { accountEventsQuery, type AccountEventFilters, type AccountEventsAnswer } from "@/lib/people-queries";
 
 export function AccountAuditTable({
@@ -17,7 +17,6 @@ export function AccountAuditTable({
   initialPage: AccountEventsAnswer;
   timeZone: string;
 }) {
-  const pathname = usePathname();
   const [filters, setFilters] = useState<AccountEventFilters>(initialFilters);
   const [search, setSearch] = useState(initialFilters.q ?? "");
   const sameAsInitial = JSON.stringify(filters) === JSON.stringify(initialFilters);
@@ -27,12 +26,11 @@ export function AccountAuditTable({
   });
 
   useEffect(() => {
-    const timer = setTimeout(() => setFilters((current) => ({ ...current, q: search.trim() || undefined })), 250);
+    const q = search.trim() || undefined;
+    const timer = setTimeout(() => setFilters((current) => (current.q === q ? current : { ...current, q })), 250);
     return () => clearTimeout(timer);
   }, [search]);
-  useEffect(() => {
-    window.history.replaceState(null, "", `${pathname}${searchString({ ...filters })}`);
-  }, [filters, pathname]);
+  useSearchInAddress(searchString({ ...filters }));
 
   const set = (key: keyof AccountEventFilters) => (event: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
     setFilters((current) => ({ ...current, [key]: event.target.value || undefined }));
