@@ -61,9 +61,9 @@ export interface RecordSwapInput {
 }
 
 /**
- * Records one off/on change as one transaction: lock and check the current state, then write
- * fitted (the removal), parts, mail and both ledger entries, and last the new fitted row with its
- * seq (the head lock is taken late and held briefly).
+ * Records one off/on change as one transaction: lock and check the current state, then write both
+ * units' parts rows, the snapshot, mail and both ledger entries, and last the fitted row with the
+ * installation's seq (the head lock is taken late and held briefly).
  * A retry with the same Idempotency-Key returns the first answer.
  */
 export async function recordSwap(input: RecordSwapInput): Promise<SwapResult> {
