@@ -55,7 +55,6 @@ export async function interleavedThroughput(
         const started = performance.now();
         await Promise.all(Array.from({ length: clients }, async () => { while (next < perRound) await once(r * perRound + next++); }));
         seconds[side] += (performance.now() - started) / 1000;
-        if (process.env.BENCH_TURNS) console.log(`turn ${r} ${side}: ${Math.round(perRound / ((performance.now() - started) / 1000))}/s`);
       });
     }
   }

@@ -286,16 +286,16 @@ function checkThread(facts: ThreadFacts): TraceFinding[] {
  * ones, since the facts for many units come in one read. Screens that only show counts read them
  * through the cache in thread-findings.ts, which calls this for the units whose thread changed.
  */
-export async function checkFindingCounts(partIds: number[], trx: Trx | Sql = sqlOnPool()): Promise<Map<number, number>> {
-  const { facts } = await loadThreads(partIds, trx, false);
+export async function checkFindingCounts(partIds: number[], runner: Trx | Sql = sqlOnPool()): Promise<Map<number, number>> {
+  const { facts } = await loadThreads(partIds, runner, false);
   const counts = new Map<number, number>();
   for (const [partId, threadFacts] of facts) counts.set(partId, checkThread(threadFacts).length);
   return counts;
 }
 
 /** The findings of one unit's thread. */
-export async function getPartFindings(partId: number, trx: Trx | Sql = sqlOnPool()): Promise<TraceFinding[]> {
-  const { facts } = await loadThreads([partId], trx, false);
+export async function getPartFindings(partId: number, runner: Trx | Sql = sqlOnPool()): Promise<TraceFinding[]> {
+  const { facts } = await loadThreads([partId], runner, false);
   const threadFacts = facts.get(partId);
   if (!threadFacts) throw notFound(`Part ${partId}`);
   return checkThread(threadFacts);
